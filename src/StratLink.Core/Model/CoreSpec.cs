@@ -1,0 +1,47 @@
+using System.Collections.Immutable;
+using StratLink.Quantities;
+
+namespace StratLink.Model;
+
+/// <summary>One core of the site: where its table is, how to read it, and which intervals are not usable.</summary>
+public sealed record CoreSpec
+{
+    public required string Id { get; init; }
+
+    /// <summary>Path of the core table, relative to the project file (or absolute).</summary>
+    public required string Table { get; init; }
+
+    public string DepthColumn { get; init; } = "depth";
+
+    /// <summary>Signals to use; empty means every numeric column but the depth (and section) columns.</summary>
+    public ImmutableList<string> Signals { get; init; } = [];
+
+    /// <summary>No recovery or section breaks: nothing is known there.</summary>
+    public ImmutableList<DepthInterval> Gaps { get; init; } = [];
+
+    /// <summary>Recovered but disturbed (e.g. a soupy top): excluded from alignment and the splice.</summary>
+    public ImmutableList<DepthInterval> Disturbed { get; init; } = [];
+
+    /// <summary>Section tops, used when the table gives section-relative depths in a <c>section</c> column.</summary>
+    public ImmutableList<SectionSpec> Sections { get; init; } = [];
+
+    /// <summary>Extra cell texts that mean "no value" (besides empty, NA and NaN), e.g. <c>-999</c>.</summary>
+    public ImmutableList<string> MissingValues { get; init; } = [];
+
+    /// <summary>1-based line of the header row; null = the first line holding the depth column name.</summary>
+    public int? HeaderLine { get; init; }
+
+    /// <summary>Sort rows by depth instead of refusing a table whose depths do not increase.</summary>
+    public bool Sort { get; init; }
+
+    /// <summary>Free text: piston, gravity, freeze, ... (optional).</summary>
+    public string? Type { get; init; }
+
+    /// <summary>True when <paramref name="depthInProjectUnit"/> lies in a gap or a disturbed interval.</summary>
+    public bool IsUnusable(double depthInProjectUnit) =>
+        Gaps.Any(g => g.ContainsValue(depthInProjectUnit)) || Disturbed.Any(d => d.ContainsValue(depthInProjectUnit));
+
+    public bool IsInGap(double depthInProjectUnit) => Gaps.Any(g => g.ContainsValue(depthInProjectUnit));
+}
+
+public sealed record SectionSpec(string Id, CoreDepth Top);

@@ -1,0 +1,37 @@
+using StratLink.Model;
+using YamlDotNet.RepresentationModel;
+
+namespace StratLink.ProjectIO;
+
+internal static class AgeModelSection
+{
+    public static readonly IReadOnlyList<string> Interpolations = ["linear", "monotone-spline"];
+
+    public static AgeModelSettings Read(YamlMap? m)
+    {
+        var s = new AgeModelSettings();
+        if (m is null) return s;
+        s = s with
+        {
+            Iterations = m.Int("iterations") ?? s.Iterations,
+            Seed = m.Int("seed") ?? s.Seed,
+            Interpolation = m.String("interpolation") ?? s.Interpolation,
+        };
+        if (s.Iterations < 1) m.Error("iterations", "at least one iteration is needed");
+        if (!Interpolations.Contains(s.Interpolation))
+            m.Error("interpolation", $"unknown interpolation '{s.Interpolation}' ({string.Join(" or ", Interpolations)})");
+        m.Finish();
+        return s;
+    }
+
+    public static YamlMappingNode Write(AgeModelSettings s)
+    {
+        var n = new YamlMappingNode
+        {
+            { "iterations", YamlOut.Num(s.Iterations) },
+            { "seed", YamlOut.Num(s.Seed) },
+        };
+        if (s.Interpolation != "linear") n.Add("interpolation", YamlOut.Str(s.Interpolation));
+        return n;
+    }
+}

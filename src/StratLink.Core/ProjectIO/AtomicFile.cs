@@ -1,0 +1,37 @@
+using System.Text;
+
+namespace StratLink.ProjectIO;
+
+/// <summary>
+/// Writes files so that a crash at any moment leaves either the old or the new content complete:
+/// write a temporary file beside the target, flush it to disk, keep the old file as NAME.bak, then
+/// rename over the target (rename is atomic on one file system).
+/// </summary>
+public static class AtomicFile
+{
+    private static readonly UTF8Encoding Utf8NoBom = new(false);
+
+    public static void WriteAllText(string path, string text, bool keepBackup = true)
+    {
+        string full = Path.GetFullPath(path);
+        string dir = Path.GetDirectoryName(full) ?? ".";
+        Directory.CreateDirectory(dir);
+        string temp = Path.Combine(dir, $".{Path.GetFileName(full)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
+        try
+        {
+            using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 64 * 1024, FileOptions.WriteThrough))
+            {
+                byte[] bytes = Utf8NoBom.GetBytes(text);
+                fs.Write(bytes);
+                fs.Flush(flushToDisk: true);
+            }
+            // Copy (not move) the old file to the backup, so the target is never absent.
+            if (keepBackup && File.Exists(full)) File.Copy(full, full + ".bak", overwrite: true);
+            File.Move(temp, full, overwrite: true);
+        }
+        finally
+        {
+            if (File.Exists(temp)) File.Delete(temp);
+        }
+    }
+}

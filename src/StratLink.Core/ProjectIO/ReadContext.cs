@@ -1,0 +1,15 @@
+using StratLink.Checks;
+using StratLink.Quantities;
+
+namespace StratLink.ProjectIO;
+
+/// <summary>State shared by the section readers while one project file is read.</summary>
+internal sealed class ReadContext(string file)
+{
+    public string File { get; } = file;
+    public FindingList Problems { get; } = [];
+    public SourceMap Map { get; } = new(file);
+
+    /// <summary>The project's depth unit, known once <c>depth_unit</c> is read (cm until then).</summary>
+    public DepthUnit Unit { get; set; } = DepthUnit.Centimetre;
+}
