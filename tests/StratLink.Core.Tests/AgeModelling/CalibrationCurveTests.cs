@@ -14,7 +14,7 @@ public class CalibrationCurveTests
     public void RealCurvesParseToPublishedRowCounts(string file, int rows)
     {
         var problems = new FindingList();
-        var curve = CalibrationCurve.Load(SharedDataFolder.Path("calibration-curves", file), problems);
+        var curve = CalibrationCurve.Load(TestCurves.PathOf(file), problems);
         Assert.Empty(problems);
         Assert.NotNull(curve);
         Assert.Equal(rows, curve.Count);
@@ -35,7 +35,7 @@ public class CalibrationCurveTests
     [InlineData("marine20.14c")]
     public void Delta14CMatchesColumnsOneAndTwo(string file)
     {
-        var curve = CalibrationCurve.Load(SharedDataFolder.Path("calibration-curves", file), new FindingList())!;
+        var curve = CalibrationCurve.Load(TestCurves.PathOf(file), new FindingList())!;
         Assert.NotNull(curve.Delta14C);
         const double tau = 8033;
         double worstPlain = 0, worstLogNormal = 0;
@@ -95,8 +95,8 @@ public class CalibrationCurveTests
     public void CacheReadsAFileOnce()
     {
         var cache = new CalibrationCurveCache();
-        var a = cache.Get(SharedDataFolder.Marine20, new FindingList());
-        var b = cache.Get(SharedDataFolder.Marine20, new FindingList());
+        var a = cache.Get(TestCurves.PathOf("marine20.14c"), new FindingList());
+        var b = cache.Get(TestCurves.PathOf("marine20.14c"), new FindingList());
         Assert.NotNull(a);
         Assert.Same(a, b);
         var problems = new FindingList();

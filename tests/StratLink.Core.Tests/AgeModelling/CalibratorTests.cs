@@ -1,14 +1,10 @@
 using StratLink.AgeModelling.Calibration;
-using StratLink.Checks;
 using StratLink.Quantities;
 
 namespace StratLink.Tests.AgeModelling;
 
 public class CalibratorTests
 {
-    private static readonly Lazy<CalibrationCurve> IntCal20 = new(() => CalibrationCurve.Load(SharedDataFolder.IntCal20, new FindingList())!);
-    private static readonly Lazy<CalibrationCurve> Marine20 = new(() => CalibrationCurve.Load(SharedDataFolder.Marine20, new FindingList())!);
-
     /// <summary>Synthetic straight-line curve mu(theta) = theta + offset, constant sigma, uneven row spacing.</summary>
     private static CalibrationCurve Line(double offset, double sigma, string name = "line")
     {
@@ -41,7 +37,7 @@ public class CalibratorTests
     [Fact]
     public void RealCurveDensityIntegratesToOne()
     {
-        var r = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(5000), 35, IntCal20.Value);
+        var r = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(5000), 35, TestCurves.IntCal20);
         Assert.Equal(CalibrationStatus.Ok, r.Status);
         Assert.Equal(1.0, r.Density!.Probabilities.Sum(), 1e-12);
         double hpd = r.Density.Hpd(CalibratedDensity.TwoSigmaLevel).Sum(h => h.Probability);
@@ -56,7 +52,7 @@ public class CalibratorTests
         // The Hallstatt plateau (about 2750-2400 cal BP, 14C ages near 2450; common practice): a 2450 +- 30 date
         // spreads over it. A straight curve would give a 95 % width of about 4 x 32 = 128 yr; require > 250 yr
         // and more than one 68 % range.
-        var d = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(2450), 30, IntCal20.Value).Density!;
+        var d = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(2450), 30, TestCurves.IntCal20).Density!;
         var h95 = d.Hpd(CalibratedDensity.TwoSigmaLevel);
         Assert.True(h95[^1].OldBP - h95[0].YoungBP > 250, $"95 % span {h95[0].YoungBP}-{h95[^1].OldBP}");
         Assert.True(d.Hpd(CalibratedDensity.OneSigmaLevel).Length > 1);
@@ -76,12 +72,12 @@ public class CalibratorTests
         Assert.Equal(64.03, r.EffectiveC14Error, 0.01);
 
         // On Marine20 a Delta-R without error equals calibrating the shifted age.
-        var a = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(4000), 40, Marine20.Value, deltaR: 150).Density!;
-        var b = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(3850), 40, Marine20.Value).Density!;
+        var a = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(4000), 40, TestCurves.Marine20, deltaR: 150).Density!;
+        var b = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(3850), 40, TestCurves.Marine20).Density!;
         Assert.Equal(b.StartBP, a.StartBP);
         Assert.Equal(b.Probabilities, a.Probabilities);
         // A positive Delta-R makes the calendar age younger.
-        var c = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(4000), 40, Marine20.Value).Density!;
+        var c = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(4000), 40, TestCurves.Marine20).Density!;
         Assert.True(a.Median < c.Median - 100);
     }
 
@@ -105,26 +101,47 @@ public class CalibratorTests
     public void ModernAndTooOldHaveNoCalendarAge()
     {
         // IntCal20's youngest 14C ages are 95 +- 10 yr BP (Reimer et al. 2020 file): -100 +- 30 is 6 sigma younger.
-        var modern = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(-100), 30, IntCal20.Value);
+        var modern = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(-100), 30, TestCurves.IntCal20);
         Assert.Equal(CalibrationStatus.Modern, modern.Status);
         Assert.Null(modern.Density);
         Assert.Contains("modern", modern.Message);
 
         // The oldest IntCal20 row is 50100 +- 1024 14C yr BP at 55,000 cal BP.
-        var old = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(60000), 500, IntCal20.Value);
+        var old = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(60000), 500, TestCurves.IntCal20);
         Assert.Equal(CalibrationStatus.TooOld, old.Status);
         Assert.Null(old.Density);
 
         // 150 +- 30 overlaps the curve but runs into its young end (0 cal BP, 199 +- 11): usable, with a warning.
-        var young = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(150), 30, IntCal20.Value);
+        var young = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(150), 30, TestCurves.IntCal20);
         Assert.Equal(CalibrationStatus.Truncated, young.Status);
         Assert.Contains("young end", young.Message);
         Assert.Equal(0, young.Density!.StartBP);
     }
 
     [Fact]
+    public void RoundingOutwardMergesTouchingRanges()
+    {
+        // Report practice (methods section 1, common practice): round HPD ranges outward to 5 or 10 yr.
+        var d = new CalibratedDensity(100, [1, 1, 1, 0, 1, 1, 0, 0, 0, 0, 0, 0, 1]);
+        var exact = d.Hpd(1.0);
+        Assert.Equal([(100, 102), (104, 105), (112, 112)], exact.Select(r => (r.YoungBP, r.OldBP)));
+        Assert.Equal([0.5, 1 / 3.0, 1 / 6.0], exact.Select(r => Math.Round(r.Probability, 12)).ToArray(), new RoundedComparer());
+        var rounded = d.HpdRoundedOutward(1.0, 5);
+        Assert.Equal(2, rounded.Length);
+        Assert.Equal((100, 105), (rounded[0].YoungBP, rounded[0].OldBP));
+        Assert.Equal(5 / 6.0, rounded[0].Probability, 1e-12);
+        Assert.Equal((110, 115), (rounded[1].YoungBP, rounded[1].OldBP));
+    }
+
+    [Fact]
     public void NonPositiveErrorIsRejected()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(1000), 0, Line(0, 30)));
+    }
+
+    private sealed class RoundedComparer : IEqualityComparer<double>
+    {
+        public bool Equals(double a, double b) => Math.Abs(a - b) < 1e-12;
+        public int GetHashCode(double v) => 0;
     }
 }

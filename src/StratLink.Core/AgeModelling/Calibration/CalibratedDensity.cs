@@ -94,7 +94,7 @@ public sealed class CalibratedDensity
         double acc = 0;
         foreach (int k in order)
         {
-            if (acc >= level) break;
+            if (acc >= level || _p[k] == 0) break;
             keep[k] = true;
             acc += _p[k];
         }
@@ -108,5 +108,25 @@ public sealed class CalibratedDensity
             ranges.Add(new HpdRange(StartBP + start, StartBP + k - 1, mass));
         }
         return ranges.ToImmutable();
+    }
+
+    /// <summary>
+    /// <see cref="Hpd"/> with each range rounded outward to multiples of <paramref name="stepYears"/> (5 or 10 yr
+    /// is the usual practice) and ranges that then touch or overlap merged, their probabilities added.
+    /// </summary>
+    public ImmutableArray<HpdRange> HpdRoundedOutward(double level, int stepYears)
+    {
+        if (stepYears < 1) throw new ArgumentOutOfRangeException(nameof(stepYears), stepYears, "A rounding step is at least one year.");
+        var merged = ImmutableArray.CreateBuilder<HpdRange>();
+        foreach (var r in Hpd(level))
+        {
+            int young = (int)Math.Floor(r.YoungBP / (double)stepYears) * stepYears;
+            int old = (int)Math.Ceiling(r.OldBP / (double)stepYears) * stepYears;
+            if (merged.Count > 0 && young <= merged[^1].OldBP)
+                merged[^1] = merged[^1] with { OldBP = Math.Max(old, merged[^1].OldBP), Probability = merged[^1].Probability + r.Probability };
+            else
+                merged.Add(new HpdRange(young, old, r.Probability));
+        }
+        return merged.ToImmutable();
     }
 }
