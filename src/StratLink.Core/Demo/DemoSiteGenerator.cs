@@ -36,8 +36,10 @@ public static class DemoSiteGenerator
     /// <param name="MeanRate">Mean accumulation rate, cm/yr. Fjord basins accumulate a few mm per year
     /// (common practice; about 1-10 mm/yr is the usual range quoted for fjords).</param>
     /// <param name="SectionLength">Liner section length, cm; section breaks are where gaps may fall (0 = one section).</param>
+    /// <param name="DisturbedTop">The top few cm came up soupy and mixed (listed under disturbed).</param>
     private sealed record CorePlan(string Id, string Type, double MeanRate, double MinLength, double MaxLength,
-        double MinLostTop, double MaxLostTop, double SectionLength, int GapCount, double MsNoise, double DensityNoise, double CaTiNoise);
+        double MinLostTop, double MaxLostTop, double SectionLength, int GapCount, bool DisturbedTop,
+        double MsNoise, double DensityNoise, double CaTiNoise);
 
     /// <param name="Thickness">Thickness in each core's complete column, cm, in core order (0 = not deposited there).</param>
     /// <param name="AgeError">1 sigma of the published age of a tephra, years; null for undated events.</param>
@@ -45,10 +47,10 @@ public static class DemoSiteGenerator
 
     private static readonly CorePlan[] Cores =
     [
-        new("MW19-P1", "piston", 0.235, 850, 890, 0, 0, 150, 2, 1.2, 0.010, 0.04),
-        new("MW19-P2", "piston", 0.220, 720, 790, 0, 0, 150, 3, 1.5, 0.012, 0.05),
-        new("MW19-G3", "gravity", 0.200, 285, 315, 30, 45, 100, 1, 2.0, 0.015, 0.06),
-        new("MW19-F4", "freeze", 0.210, 80, 95, 0, 0, 0, 0, 1.5, 0.015, 0.05),
+        new("MW19-P1", "piston", 0.235, 850, 890, 0, 0, 150, 2, false, 1.2, 0.010, 0.04),
+        new("MW19-P2", "piston", 0.220, 720, 790, 0, 0, 150, 3, true, 1.5, 0.012, 0.05),
+        new("MW19-G3", "gravity", 0.200, 285, 315, 30, 45, 100, 1, false, 2.0, 0.015, 0.06),
+        new("MW19-F4", "freeze", 0.210, 80, 95, 0, 0, 0, 0, false, 1.5, 0.015, 0.05),
     ];
 
     // Event ages fall mid-year so that a layer lies inside one varve. Flood-1 lies above the gravity
@@ -90,8 +92,9 @@ public static class DemoSiteGenerator
             if (plan.Id == ReferenceCore) referenceBaseAge = strat.AgeAt(length);
             // Every core must end well above the reference core's base so its true composite depth exists.
             else length = Math.Min(length, strat.CoreDepthAtAge(referenceBaseAge - 150));
+            // The freeze core should hold the youngest dated tephra, within its metre.
             if (plan.Id == VarveCore && strat.LayerOf(EventIndex("ash-1")) is { } ash)
-                length = Math.Max(length, ash.Base + 5);
+                length = Math.Min(Math.Max(length, ash.Base + 5), 100);
             strata[plan.Id] = strat;
             lengths[plan.Id] = Math.Round(length, 1);
         }
@@ -104,7 +107,7 @@ public static class DemoSiteGenerator
             var strat = strata[plan.Id];
             double length = lengths[plan.Id];
             var gaps = Gaps(SeedStreams.For(seed, "gaps/" + plan.Id), plan, length, strat, events.Count);
-            ImmutableList<DepthInterval> disturbed = plan.Id == "MW19-P2"
+            ImmutableList<DepthInterval> disturbed = plan.DisturbedTop
                 ? [DepthInterval.FromTopBottom(0, Math.Round(Uniform(SeedStreams.For(seed, "disturbed"), 5, 9) * 2) / 2, DepthUnit.Centimetre)]
                 : [];
             double[] depths = SampleDepths(length, gaps);
@@ -245,6 +248,7 @@ public static class DemoSiteGenerator
         var sensor = SeedStreams.For(seed, "sensor/" + plan.Id);
         double msGain = Uniform(sensor, 0.85, 1.15), msOffset = Uniform(sensor, -4, 4);
         double densityOffset = Uniform(sensor, -0.03, 0.03), caTiOffset = Uniform(sensor, -0.15, 0.15);
+        // Same stream for every core: an event's strength is a property of the event, not of the core.
         var intensity = SeedStreams.For(seed, "intensity");
         double[] eventIntensity = events.Select(_ => Uniform(intensity, 0.8, 1.2)).ToArray();
 

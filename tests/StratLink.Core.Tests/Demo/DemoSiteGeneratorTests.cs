@@ -140,6 +140,42 @@ public class DemoSiteGeneratorTests
         for (int i = 0; i < reference.Depths.Length; i++) Assert.Equal(reference.Depths[i], reference.CompositeDepths[i], 9);
     }
 
+    [Theory]
+    [MemberData(nameof(Seeds))]
+    public void StraightLinesBetweenTiesAreADecentButImprovableBaseline(int seed)
+    {
+        // Accumulation rates wiggle between ties on decimetre scales, so straight lines between marker
+        // ties miss the true mapping by centimetres (room for a signal alignment to do better), yet
+        // the ties are dense enough that the miss stays well below a decimetre.
+        var site = DemoSiteGenerator.Generate(seed);
+        foreach (string id in new[] { "MW19-P2", "MW19-G3" })
+            Assert.InRange(TiesBaselineRms(site, id), 1.5, 8.0);
+    }
+
+    /// <summary>RMS (cm) of straight lines between marker ties against the true composite depth, over the samples between the outer ties.</summary>
+    internal static double TiesBaselineRms(DemoSite site, string coreId)
+    {
+        var ties = site.Project.Markers
+            .Where(m => m.DepthIn(coreId) is not null && m.DepthIn(site.ReferenceCoreId) is not null)
+            .Select(m => (Core: m.DepthIn(coreId)!.Value.In(Cm), Reference: m.DepthIn(site.ReferenceCoreId)!.Value.In(Cm)))
+            .OrderBy(t => t.Core).ToList();
+        Assert.True(ties.Count >= 2, $"{coreId} has {ties.Count} ties");
+        var truth = site.Truth[coreId];
+        double sum = 0;
+        int n = 0;
+        for (int i = 0; i < truth.Depths.Length; i++)
+        {
+            double z = truth.Depths[i];
+            if (z < ties[0].Core || z > ties[^1].Core) continue;
+            int k = 0;
+            while (k < ties.Count - 2 && z > ties[k + 1].Core) k++;
+            double line = ties[k].Reference + (z - ties[k].Core) * (ties[k + 1].Reference - ties[k].Reference) / (ties[k + 1].Core - ties[k].Core);
+            sum += (line - truth.CompositeDepths[i]) * (line - truth.CompositeDepths[i]);
+            n++;
+        }
+        return Math.Sqrt(sum / n);
+    }
+
     [Fact]
     public void TrueMappingAsDepthMappingReproducesTheSampleTruth()
     {
