@@ -48,6 +48,7 @@ public static class CliApp
 
     private static IEnumerable<Command> Verbs(CliContext ctx) =>
     [
+        DemoCommand.Create(ctx),
         CalibrateCommand.Create(ctx),
     ];
 }
