@@ -49,7 +49,7 @@ public sealed record AgeControlSummary
     /// </summary>
     public double LeaveOneOutZ { get; init; } = double.NaN;
 
-    /// <summary>Contradicted in at least half of the iterations: check it (and its <see cref="LeaveOneOutZ"/>), or set <c>exclude: true</c>.</summary>
+    /// <summary>Out of order in at least half of the iterations and |<see cref="LeaveOneOutZ"/>| of 2 or more: check it, or set <c>exclude: true</c>.</summary>
     public bool Flagged { get; init; }
 
     /// <summary>Left out by the project file (<c>exclude: true</c>); still summarised.</summary>

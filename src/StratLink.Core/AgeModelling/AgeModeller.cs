@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Globalization;
+using MathNet.Numerics.Statistics;
 using StratLink.AgeModelling.Calibration;
 using StratLink.Alignment;
 using StratLink.Checks;
@@ -24,7 +25,8 @@ namespace StratLink.AgeModelling;
 /// <para>
 /// Contradicted controls: in each iteration the first, unconstrained draw of each control is compared with
 /// the others in use. The share of iterations in which it is out of order with at least one of them is its
-/// <see cref="AgeControlSummary.ContradictionShare"/>, flagged at <see cref="FlagShare"/> or more. Order alone
+/// <see cref="AgeControlSummary.ContradictionShare"/>; a control is flagged at <see cref="FlagShare"/> or more
+/// when its leave-one-out |z| is also at least <see cref="FlagZ"/>. Order alone
 /// cannot tell which of two conflicting controls is wrong, so both are flagged; the leave-one-out z-score
 /// (<see cref="AgeControlSummary.LeaveOneOutZ"/>: the control's draw against the age the other controls give at
 /// its depth by linear interpolation, mean over sd of the difference) says which one the rest disagree with more.
@@ -35,6 +37,13 @@ public static class AgeModeller
 {
     public const int MaxOrderAttempts = 100;
     public const double FlagShare = 0.5;
+
+    /// <summary>
+    /// Flagging also needs the control to disagree with the others' interpolated age by this many standard
+    /// deviations: a precise age inside a densely counted varve run is "out of order" with some varve in most
+    /// unconstrained draws even when the two agree.
+    /// </summary>
+    public const double FlagZ = 2.0;
 
     /// <summary>Samples per unit of parallel work when summarising ages.</summary>
     private const int SampleBlock = 64;
@@ -98,7 +107,7 @@ public static class AgeModeller
         var summaries = Summaries(specs, prepared, problemOf, active, measured, iterations, draws);
         foreach (var s in summaries.Where(s => s.Flagged))
             findings.Add(Finding.Warning(AgeModelCodes.Contradicted,
-                $"age control {s.Id} is out of stratigraphic order with most other controls in {Pct(s.ContradictionShare)} % of iterations{(s.Excluded ? " (excluded)" : "; check it, or set exclude: true")}.") with { Item = s.Id, Core = s.Cores.FirstOrDefault() });
+                $"age control {s.Id} is out of stratigraphic order with another control in {Pct(s.ContradictionShare)} % of iterations (leave-one-out z {s.LeaveOneOutZ.ToString("0.0", CultureInfo.InvariantCulture)}){(s.Excluded ? " (excluded)" : "; check it, or set exclude: true")}.") with { Item = s.Id, Core = s.Cores.FirstOrDefault() });
 
         // Ages of every core's samples, then of the composite grid.
         var cores = new Dictionary<string, AgeSeries>();
@@ -262,11 +271,13 @@ public static class AgeModeller
         {
             var pc = prepared[c]!;
             b.Rng[c] = new Random(SeedStreams.Derive(seed, i, c));
-            double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
+            var depths = b.Depth.AsSpan(b.Offset[c], pc.PointCount);
             for (int q = 0; q < pc.PointCount; q++)
+                depths[q] = alignment.Mappings[pc.PointCores[q]].Member(i).ToCompositeValue(pc.PointDepths[q]);
+            if (pc.IsMarker && pc.PointCount > 1) PlaceMarker(pc, depths, alignment.ReferenceCore);
+            double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
+            foreach (double z in depths)
             {
-                double z = alignment.Mappings[pc.PointCores[q]].Member(i).ToCompositeValue(pc.PointDepths[q]);
-                b.Depth[b.Offset[c] + q] = z;
                 top = Math.Min(top, z);
                 bottom = Math.Max(bottom, z);
             }
@@ -315,6 +326,26 @@ public static class AgeModeller
         }
 
         return BuildCurve(b.Order, depth, age, interpolation, i);
+    }
+
+    /// <summary>
+    /// A marker is one layer, so its age sits at one composite depth per iteration: the reference core's depth
+    /// when the reference holds the marker, else the mean of the depths its cores map to. (Left at each core's
+    /// mapped depth, the correlation scatter would interleave one age with its neighbours' and no draw would be
+    /// in order.) Its spread over the iterations still reaches every core's samples through their mappings.
+    /// </summary>
+    private static void PlaceMarker(PreparedControl pc, Span<double> depths, string referenceCore)
+    {
+        int r = Array.IndexOf(pc.PointCores, referenceCore);
+        double z = r >= 0 ? depths[r] : Mean(depths);
+        depths.Fill(z);
+
+        static double Mean(Span<double> values)
+        {
+            double sum = 0;
+            foreach (double v in values) sum += v;
+            return sum / values.Length;
+        }
     }
 
     /// <summary>
@@ -418,12 +449,12 @@ public static class AgeModeller
             {
                 int hits = 0;
                 for (int i = 0; i < iterations; i++) if (draws.Contradicted[i * nControls + c]) hits++;
-                double share = hits / (double)iterations;
+                double share = hits / (double)iterations, z = StandardisedMean(draws.Discrepancy, c);
                 summary = summary with
                 {
                     ContradictionShare = share,
-                    Flagged = share >= FlagShare,
-                    LeaveOneOutZ = StandardisedMean(draws.Discrepancy, c),
+                    LeaveOneOutZ = z,
+                    Flagged = share >= FlagShare && Math.Abs(z) >= FlagZ,
                     CompositeTop = MedianOfColumn(draws.Top, c),
                     CompositeBottom = MedianOfColumn(draws.Bottom, c),
                 };
@@ -485,6 +516,38 @@ public static class AgeModeller
     private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves, ParallelOptions options)
     {
         int n = depths.Length, members = curves.Length;
+
+        // Iterations cycle through the alignment members: map every sample through each distinct member once.
+        var memberOf = new int[members];
+        var distinct = new List<DepthMapping>();
+        if (ensemble is not null)
+        {
+            var index = new Dictionary<DepthMapping, int>(ReferenceEqualityComparer.Instance);
+            for (int i = 0; i < members; i++)
+            {
+                var mapping = ensemble.Member(i);
+                if (!index.TryGetValue(mapping, out int k))
+                {
+                    k = distinct.Count;
+                    index[mapping] = k;
+                    distinct.Add(mapping);
+                }
+                memberOf[i] = k;
+            }
+        }
+        var composite = new double[distinct.Count][];
+        var ratio = new double[distinct.Count][];
+        Parallel.For(0, distinct.Count, options, k =>
+        {
+            composite[k] = new double[n];
+            ratio[k] = new double[n];
+            for (int s = 0; s < n; s++)
+            {
+                composite[k][s] = distinct[k].ToCompositeValue(depths[s]);
+                ratio[k][s] = distinct[k].RateRatioAt(depths[s]);
+            }
+        });
+
         var med = new double[n];
         var lo = new double[n];
         var hi = new double[n];
@@ -493,41 +556,45 @@ public static class AgeModeller
         var rHi = new double[n];
         var extrapolated = new bool[n];
         int blocks = (n + SampleBlock - 1) / SampleBlock;
-        Parallel.For(0, blocks, options, () => (Ages: new double[SampleBlock * members], Times: new double[SampleBlock * members]), (blk, _, buf) =>
+        Parallel.For(0, blocks, options, () => (Ages: new double[SampleBlock * members], Times: new double[SampleBlock * members], Column: new double[members]), (blk, _, buf) =>
         {
             int from = blk * SampleBlock, len = Math.Min(SampleBlock, n - from);
             var outside = new int[len];
             for (int i = 0; i < members; i++)
             {
-                var mapping = ensemble?.Member(i);
                 var curve = curves[i];
+                double[]? zs = ensemble is null ? null : composite[memberOf[i]];
+                double[]? rs = ensemble is null ? null : ratio[memberOf[i]];
                 for (int s = 0; s < len; s++)
                 {
-                    double d = depths[from + s];
-                    double z = mapping?.ToCompositeValue(d) ?? d;
+                    double z = zs is null ? depths[from + s] : zs[from + s];
                     buf.Ages[s * members + i] = curve.AgeAt(z, out double yearsPerUnit);
-                    buf.Times[s * members + i] = yearsPerUnit * (mapping?.RateRatioAt(d) ?? 1);
+                    buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
                     if (curve.IsExtrapolated(z)) outside[s]++;
                 }
             }
             for (int s = 0; s < len; s++)
             {
-                var ages = buf.Ages.AsSpan(s * members, members);
-                ages.Sort();
-                med[from + s] = Statistics.PercentileSorted(ages, 50);
-                lo[from + s] = Statistics.PercentileSorted(ages, 2.5);
-                hi[from + s] = Statistics.PercentileSorted(ages, 97.5);
-                // Percentiles of deposition time (yr per unit) inverted: the rate's percentiles, ends swapped.
-                var times = buf.Times.AsSpan(s * members, members);
-                times.Sort();
-                rMed[from + s] = 1 / Statistics.PercentileSorted(times, 50);
-                rLo[from + s] = 1 / Statistics.PercentileSorted(times, 97.5);
-                rHi[from + s] = 1 / Statistics.PercentileSorted(times, 2.5);
+                (med[from + s], lo[from + s], hi[from + s]) = Percentiles(buf.Ages, s * members, buf.Column);
+                // Percentiles of deposition time (yr per unit) inverted are the rate's, ends swapped.
+                var (tMed, tLo, tHi) = Percentiles(buf.Times, s * members, buf.Column);
+                rMed[from + s] = 1 / tMed;
+                rLo[from + s] = 1 / tHi;
+                rHi[from + s] = 1 / tLo;
                 extrapolated[from + s] = 2 * outside[s] > members;
             }
             return buf;
         }, _ => { });
         return new AgeSeries(id, isComposite, unit, depths, med, lo, hi, rMed, rLo, rHi, extrapolated);
+    }
+
+    /// <summary>Median, 2.5 and 97.5 percentiles (type 7, as <see cref="Statistics.PercentileSorted"/>) of one member column, by selection rather than a full sort.</summary>
+    private static (double Median, double Lo, double Hi) Percentiles(double[] values, int offset, double[] scratch)
+    {
+        Array.Copy(values, offset, scratch, 0, scratch.Length);
+        return (ArrayStatistics.QuantileCustomInplace(scratch, 0.5, QuantileDefinition.R7),
+                ArrayStatistics.QuantileCustomInplace(scratch, 0.025, QuantileDefinition.R7),
+                ArrayStatistics.QuantileCustomInplace(scratch, 0.975, QuantileDefinition.R7));
     }
 
     private static void NoteExtrapolation(AgeSeries series, FindingList findings)

@@ -52,6 +52,9 @@ internal sealed class PreparedControl
 
     public int PointCount => PointDepths.Length;
 
+    /// <summary>A calendar age attached to a marker layer (its points are the marker's depth in each core).</summary>
+    public bool IsMarker => Spec is CalendarAgeControl { Marker: not null };
+
     /// <summary>The density shown in summaries (calibrated, or a normal calendar age on whole years); null for varves.</summary>
     public CalibratedDensity? Density { get; }
 
