@@ -4,7 +4,6 @@ namespace StratLink.AgeModelling;
 public static class AgeModelCodes
 {
     public const string TooFewControls = "age-model.too-few-controls";
-    public const string UnknownCore = "age-model.unknown-core";
     public const string UnknownMarker = "age-model.unknown-marker";
     public const string NoMapping = "age-model.no-mapping";
     public const string Calibration = "age-model.calibration";

@@ -69,9 +69,6 @@ internal sealed class PreparedControl
     public static PreparedControl Varve(VarveCountControl spec, VarveSequence sequence) =>
         new(spec, Enumerable.Repeat(spec.Core, sequence.Depths.Length).ToArray(), sequence.Depths, spec.AnchorAge.YearsBP, spec.AnchorError, null, sequence, spec.CountError);
 
-    /// <summary>Anchor or calendar age and its sigma (the input, before any ordering).</summary>
-    public (double Age, double Sigma) Input => (_mean, _sigma);
-
     /// <summary>Draws the ages of every point into <paramref name="ages"/> from <paramref name="rng"/>.</summary>
     public void Draw(Random rng, Span<double> ages)
     {

@@ -30,6 +30,4 @@ public sealed class CalibrationCurveCache
         if (curve is not null) _curves[full] = (info.LastWriteTimeUtc, info.Length, curve);
         return curve;
     }
-
-    public int Count => _curves.Count;
 }
