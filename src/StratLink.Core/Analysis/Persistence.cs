@@ -1,5 +1,3 @@
-using MathNet.Numerics;
-
 namespace StratLink.Analysis;
 
 /// <summary>
@@ -44,7 +42,7 @@ public static class Persistence
         return new PersistenceEstimate(-meanSpacing / Math.Log(rho), rho, meanSpacing, clamped);
     }
 
-    /// <summary>A coarse scan over (0, 1) finds the global minimum's neighbourhood (the function can have several minima), a bounded search refines it.</summary>
+    /// <summary>A coarse scan over (0, 1) finds the global minimum's neighbourhood (the function can have several minima), a golden-section search refines it.</summary>
     private static double MinimiseLeastSquares(double[] u, double[] x)
     {
         double Ls(double a)
@@ -65,8 +63,21 @@ public static class Persistence
             double v = Ls(a);
             if (v < bestValue) { bestValue = v; best = a; }
         }
-        double lo = Math.Max(1e-9, best - 1.0 / steps), hi = Math.Min(1 - 1e-9, best + 1.0 / steps);
-        return FindMinimum.OfScalarFunctionConstrained(Ls, lo, hi, 1e-10);
+        return GoldenSection(Ls, Math.Max(0, best - 1.0 / steps), Math.Min(1, best + 1.0 / steps));
+    }
+
+    /// <summary>Golden-section search for the minimum inside [lo, hi] (never leaves the interval, unlike searches that expand their bracket).</summary>
+    private static double GoldenSection(Func<double, double> f, double lo, double hi)
+    {
+        double g = (Math.Sqrt(5) - 1) / 2;
+        double a = hi - g * (hi - lo), b = lo + g * (hi - lo);
+        double fa = f(a), fb = f(b);
+        while (hi - lo > 1e-10)
+        {
+            if (fa < fb) { hi = b; b = a; fb = fa; a = hi - g * (hi - lo); fa = f(a); }
+            else { lo = a; a = b; fa = fb; b = lo + g * (hi - lo); fb = f(b); }
+        }
+        return 0.5 * (lo + hi);
     }
 
     private static double SumSquares(double[] x)
