@@ -109,7 +109,7 @@ public sealed class SvgPlot
     {
         const double marginLeft = 72, marginRight = 16, marginTop = 28, marginBottom = 46;
         var f = new Frame(left + marginLeft, top + marginTop, width - marginLeft - marginRight, height - marginTop - marginBottom,
-            Range(XMin ?? _xMin, XMax ?? _xMax, LogX), Range(YMin ?? _yMin, YMax ?? _yMax, LogY), LogX, LogY, ReverseX);
+            Range(XMin ?? _xMin, XMax ?? _xMax, LogX, padToTicks: false), Range(YMin ?? _yMin, YMax ?? _yMax, LogY, padToTicks: true), LogX, LogY, ReverseX);
         if (Title is not null)
             sb.Append($"<text x=\"{F(f.Left)}\" y=\"{F(top + 18)}\" font-size=\"14\" font-weight=\"bold\">{Escape(Title)}</text>\n");
         sb.Append($"<clipPath id=\"{clipId}\"><rect x=\"{F(f.Left)}\" y=\"{F(f.Top)}\" width=\"{F(f.Width)}\" height=\"{F(f.Height)}\"/></clipPath>\n");
@@ -178,16 +178,18 @@ public sealed class SvgPlot
         if (d.Length > 0) yield return d.ToString();
     }
 
-    /// <summary>Data range padded to whole ticks (decades on a log axis); a degenerate range is widened.</summary>
-    private static (double Lo, double Hi) Range(double lo, double hi, bool log)
+    /// <summary>Data range, padded to whole ticks (decades on a log axis) when asked; a degenerate range is widened.</summary>
+    private static (double Lo, double Hi) Range(double lo, double hi, bool log, bool padToTicks)
     {
         if (!double.IsFinite(lo) || !double.IsFinite(hi)) return log ? (1, 10) : (0, 1);
+        if (log && !padToTicks) return hi > lo ? (lo, hi) : (lo / 10, hi * 10);
         if (log)
         {
             double l = Math.Pow(10, Math.Floor(Math.Log10(lo))), h = Math.Pow(10, Math.Ceiling(Math.Log10(hi) - 1e-9));
             return (l, h > l ? h : l * 10);
         }
         if (hi - lo <= 0) { double pad = Math.Abs(lo) > 0 ? Math.Abs(lo) * 0.1 : 1; return (lo - pad, hi + pad); }
+        if (!padToTicks) return (lo, hi);
         double step = NiceStep(hi - lo);
         return (Math.Floor(lo / step + 1e-9) * step, Math.Ceiling(hi / step - 1e-9) * step);
     }
@@ -203,14 +205,14 @@ public sealed class SvgPlot
     {
         if (log)
         {
-            for (int e = (int)Math.Round(Math.Log10(r.Lo)); e <= (int)Math.Round(Math.Log10(r.Hi)); e++)
+            for (int e = (int)Math.Ceiling(Math.Log10(r.Lo) - 1e-9); e <= (int)Math.Floor(Math.Log10(r.Hi) + 1e-9); e++)
                 yield return (Math.Pow(10, e), e is >= -3 and <= 4 ? Math.Pow(10, e).ToString("0.###", CultureInfo.InvariantCulture)
                     : $"10<tspan dy=\"-5\" font-size=\"8\">{e}</tspan>");
             yield break;
         }
         double step = NiceStep(r.Hi - r.Lo);
         int decimals = Math.Max(0, -(int)Math.Floor(Math.Log10(step) + 1e-9));
-        for (double v = r.Lo; v <= r.Hi + step * 1e-6; v += step)
+        for (double v = Math.Ceiling(r.Lo / step - 1e-6) * step; v <= r.Hi + step * 1e-6; v += step)
         {
             double snapped = Math.Round(v / step) * step + 0.0; // + 0.0 turns -0 into 0
             yield return (snapped, snapped.ToString("F" + decimals, CultureInfo.InvariantCulture));
