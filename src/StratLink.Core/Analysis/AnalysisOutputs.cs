@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text;
-using StratLink.Export;
 using StratLink.ProjectIO;
 
 namespace StratLink.Analysis;

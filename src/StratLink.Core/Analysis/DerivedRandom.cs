@@ -1,15 +1,14 @@
 namespace StratLink.Analysis;
 
 /// <summary>
-/// Independent, reproducible random streams for parallel work: each unit of work (a surrogate batch, an
-/// age-model member) gets its own <see cref="Random"/> seeded from the run seed, a stream number and its
+/// Independent, reproducible random streams for parallel work: each unit of work (a surrogate batch, the
+/// choice of age-model members) gets its own <see cref="Random"/> seeded from the run seed, a stream number and its
 /// index through SplitMix64 (Steele, Lea and Flood 2014), so results do not depend on thread scheduling.
 /// </summary>
 internal static class DerivedRandom
 {
     public const int SurrogateStream = 1;
-    public const int MemberStream = 2;
-    public const int MemberSampleStream = 3;
+    public const int MemberSampleStream = 2;
 
     public static Random Create(int seed, int stream, int index) => new(DeriveSeed(seed, stream, index));
 

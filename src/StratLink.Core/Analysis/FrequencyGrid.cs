@@ -11,7 +11,4 @@ public readonly record struct FrequencyGrid(double Step, int Count)
         for (int k = 0; k < Count; k++) f[k] = Frequency(k);
         return f;
     }
-
-    /// <summary>Index of the grid frequency nearest <paramref name="frequency"/>, clamped to the grid.</summary>
-    public int NearestIndex(double frequency) => Math.Clamp((int)Math.Round(frequency / Step) - 1, 0, Count - 1);
 }

@@ -10,7 +10,4 @@ public sealed record GaussianFilterBand(
     double SigmaYears,
     double HalfPowerShortPeriodYears,
     double HalfPowerLongPeriodYears,
-    double[] Values)
-{
-    public bool IsLowPass => double.IsPositiveInfinity(CentrePeriodYears);
-}
+    double[] Values);
