@@ -12,7 +12,7 @@ namespace StratLink.Export;
 /// </summary>
 public static partial class CompositeFigures
 {
-    private const double W = 900, H = 460, Left = 80, Right = 20, Top = 40;
+    private const double W = 900, H = 480, Left = 80, Right = 20, Top = 60;
     private const double MainHeight = 270, StripTop = Top + MainHeight + 50, StripHeight = 50;
 
     /// <summary>The signal's composite against composite depth (<paramref name="againstAge"/> false) or age; null when there are no ages.</summary>
@@ -39,10 +39,10 @@ public static partial class CompositeFigures
         canvas.Path(BandOutline(plot, x, record.Lo, record.Hi), SvgStyle.Filled("#c8c8c8"), "band", $"band-{Safe(record.Signal)}", close: true);
         canvas.Path(Series(plot, x, record.Mean), new SvgStyle { StrokeWidth = 1.2 }, "mean", $"mean-{Safe(record.Signal)}");
         canvas.Path(Series(plot, x, record.Spliced), SvgStyle.Dashed with { StrokeWidth = 0.8 }, "splice", $"splice-{Safe(record.Signal)}");
-        Legend(canvas, W - Right - 250, Top + 10);
+        Legend(canvas, Left, 42);
 
         var strip = new PlotArea(canvas, Left, StripTop, W - Left - Right, StripHeight, (xMin, xMax), (0, Math.Max(1, MaxOf(record.N))));
-        strip.DrawAxes(xLabel, "cores (n)", grid: false);
+        strip.DrawAxes(xLabel, "cores (n)", grid: false, yTickTarget: Math.Max(1, MaxOf(record.N)));
         var steps = new List<(double, double)>();
         for (int r = 0; r < rows; r++)
         {
@@ -75,16 +75,16 @@ public static partial class CompositeFigures
     [GeneratedRegex("[^A-Za-z0-9._-]")]
     private static partial Regex UnsafeChars();
 
+    /// <summary>One row of keys above the plot, so it never hides data.</summary>
     private static void Legend(SvgCanvas canvas, double x, double y)
     {
         var g = canvas.Group("legend");
-        canvas.Rect(x - 6, y - 4, 250, 52, new SvgStyle { Fill = "white", StrokeWidth = 0.5 }, parent: g);
-        canvas.Rect(x, y + 2, 24, 8, SvgStyle.Filled("#c8c8c8"), parent: g);
-        canvas.Text(x + 30, y + 10, "95 % band (cores and alignments)", parent: g);
-        canvas.Line(x, y + 22, x + 24, y + 22, new SvgStyle { StrokeWidth = 1.2 }, parent: g);
-        canvas.Text(x + 30, y + 26, "mean of cores", parent: g);
-        canvas.Line(x, y + 38, x + 24, y + 38, SvgStyle.Dashed with { StrokeWidth = 0.8 }, parent: g);
-        canvas.Text(x + 30, y + 42, "splice (one core at a time)", parent: g);
+        canvas.Rect(x, y - 8, 24, 8, SvgStyle.Filled("#c8c8c8"), parent: g);
+        canvas.Text(x + 30, y, "95 % band (cores and alignments)", parent: g);
+        canvas.Line(x + 230, y - 4, x + 254, y - 4, new SvgStyle { StrokeWidth = 1.2 }, parent: g);
+        canvas.Text(x + 260, y, "mean of cores", parent: g);
+        canvas.Line(x + 370, y - 4, x + 394, y - 4, SvgStyle.Dashed with { StrokeWidth = 0.8 }, parent: g);
+        canvas.Text(x + 400, y, "splice (one core at a time)", parent: g);
     }
 
     private static IEnumerable<(double, double)> Series(PlotArea plot, double[] x, IReadOnlyList<double> y)

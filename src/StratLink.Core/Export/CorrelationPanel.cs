@@ -39,7 +39,7 @@ public static class CorrelationPanel
             x += colWidth[i] + CoreGap;
         }
         // At least as wide as the legend.
-        double width = Math.Max(x - CoreGap + 40, 820);
+        double width = Math.Max(x - CoreGap + 40, 880);
         var canvas = new SvgCanvas(width, Top + PlotHeight + BottomSpace, "Cores side by side with marker ties and splice intervals");
 
         double dMin = cores.Min(c => project.Tables[c.Id].Depths[0]);

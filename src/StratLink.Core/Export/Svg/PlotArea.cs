@@ -39,11 +39,12 @@ public sealed class PlotArea
         : Bottom - (y - Y.Min) / (Y.Max - Y.Min) * Height;
 
     /// <summary>Frame, ticks with labels on the left and bottom, light grid lines, and the axis titles.</summary>
-    public XElement DrawAxes(string xLabel, string yLabel, bool grid = true)
+    /// <param name="yTickTarget">About how many y ticks; by default one per 50 pixels.</param>
+    public XElement DrawAxes(string xLabel, string yLabel, bool grid = true, int? yTickTarget = null)
     {
         var g = Canvas.Group("axes");
         var xt = AxisTicks.Nice(X.Min, X.Max, Math.Max(2, (int)(Width / 80)));
-        var yt = AxisTicks.Nice(Y.Min, Y.Max, Math.Max(2, (int)(Height / 50)));
+        var yt = AxisTicks.Nice(Y.Min, Y.Max, yTickTarget ?? Math.Max(2, (int)(Height / 50)));
         double xs = xt.Count > 1 ? xt[1] - xt[0] : 1, ys = yt.Count > 1 ? yt[1] - yt[0] : 1;
         foreach (double t in xt)
         {
