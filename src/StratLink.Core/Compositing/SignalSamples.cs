@@ -40,7 +40,8 @@ internal sealed class SignalSamples
         var x = Depths;
         var y = Values;
         int n = x.Length;
-        int i = 0;
+        // One search places the sweep at the first depth; the rest of the pass only moves forward.
+        int i = coreDepths.Length > 0 ? LastAtOrBefore(x, coreDepths[0]) : 0;
         for (int k = 0; k < coreDepths.Length; k++)
         {
             double d = coreDepths[k];
@@ -54,5 +55,12 @@ internal sealed class SignalSamples
             double dx = x[i + 1] - x[i];
             result[k] = dx > MaxBridge ? double.NaN : y[i] + (y[i + 1] - y[i]) * (d - x[i]) / dx;
         }
+    }
+
+    private static int LastAtOrBefore(double[] x, double d)
+    {
+        int k = Array.BinarySearch(x, d);
+        if (k >= 0) return k;
+        return Math.Max(0, ~k - 1);
     }
 }
