@@ -116,6 +116,6 @@ public static class DelimitedTextReader
             report.Error(ProjectCodes.TableBadCell, $"'{cell}' in column '{c.Name}' is not a number (list it under missing_values if it means 'no value')", line, c.Name);
         int unlisted = c.TextCells - c.TextSamplesSeen.Count;
         if (unlisted > 0)
-            report.Error(ProjectCodes.TableBadCell, $"column '{c.Name}' holds {c.TextCells} cells that are not numbers in all", null, c.Name);
+            report.Summary(ProjectCodes.TableBadCell, $"column '{c.Name}' holds {c.TextCells} cells that are not numbers in all; the first {c.TextSamplesSeen.Count} are listed", c.Name);
     }
 }

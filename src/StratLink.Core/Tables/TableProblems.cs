@@ -23,6 +23,13 @@ internal sealed class TableProblems(FindingList target, string file)
         if (n <= PerCode) target.AddError(code, message, file, line, field);
     }
 
+    /// <summary>An error that sums up others (never capped).</summary>
+    public void Summary(string code, string message, string? field = null)
+    {
+        HasErrors = true;
+        target.AddError(code, message, file, null, field);
+    }
+
     public void Warning(string code, string message, int? line = null, string? field = null) =>
         target.AddWarning(code, message, file, line, field);
 

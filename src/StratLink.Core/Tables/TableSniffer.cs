@@ -36,7 +36,9 @@ internal static class TableSniffer
 
         using var lines = new ByteLineReader(stream, options.MaxLineBytes);
         var fields = new List<Range>();
+        var parser = new CellParser(decimalCommaAllowed: true, []);
         string? caseHint = null;
+        TableLayout? candidate = null, firstRejected = null;
         int limit = options.HeaderLine ?? options.MaxHeaderSearchLines;
         while (lines.LineNumber < limit && lines.TryReadLine())
         {
@@ -47,15 +49,28 @@ internal static class TableSniffer
                 return ExplicitHeader(line, wanted, encoding, options, fields, path, problems);
             }
             if (IsBlankOrComment(line)) continue;
+            // A preamble sentence can hold the key word too ("depth in cm"): a header must be followed by a
+            // row of as many fields with a number (or nothing) under the key column.
+            if (candidate is not null)
+            {
+                if (FitsHeader(line, candidate, options.KeyColumn, fields, parser)) return candidate;
+                firstRejected ??= candidate;
+                candidate = null;
+            }
             foreach (var d in Delimiters.DetectionOrder)
             {
                 var names = Names(line, d, encoding, fields);
                 if (names.Contains(options.KeyColumn, StringComparer.Ordinal))
-                    return new TableLayout(lines.LineNumber, d, encoding, names);
+                {
+                    candidate = new TableLayout(lines.LineNumber, d, encoding, names);
+                    break;
+                }
                 caseHint ??= names.FirstOrDefault(x => string.Equals(x, options.KeyColumn, StringComparison.OrdinalIgnoreCase)) is string near
                     ? $"; line {lines.LineNumber} has '{near}' (column names are case-sensitive)" : null;
             }
         }
+        // No header with a fitting row: take the first line holding the key; its rows' problems get reported then.
+        if ((candidate ?? firstRejected) is { } found && !lines.LineTooLong) return found;
         if (lines.LineTooLong)
         {
             problems.AddError(ProjectCodes.TableLineTooLong, $"line {lines.LineNumber} is longer than {options.MaxLineBytes} bytes; this is not a delimited text table", path, lines.LineNumber);
@@ -95,6 +110,20 @@ internal static class TableSniffer
         problems.AddError(ProjectCodes.TableMissingColumn,
             $"header line {lineNumber} has no column '{options.KeyColumn}'; its columns are: {string.Join(", ", best.Take(30))}", path, lineNumber, options.KeyColumn);
         return null;
+    }
+
+    private static bool FitsHeader(ReadOnlySpan<byte> line, TableLayout header, string key, List<Range> fields, CellParser parser)
+    {
+        FieldSplitter.Split(line, header.Delimiter, fields);
+        int used = fields.Count;
+        while (used > 0 && CellParser.Trim(line[fields[used - 1]]).IsEmpty) used--;
+        if (used > header.Columns.Count || fields.Count < header.Columns.Count) return false;
+        int k = 0;
+        while (header.Columns[k] != key) k++;
+        var cell = line[fields[k]];
+        var t = CellParser.Trim(cell);
+        if (t.Length >= 2 && t[0] == (byte)'"' && t[^1] == (byte)'"') t = t[1..^1];
+        return parser.Parse(t, out _) != CellKind.Text;
     }
 
     private static string[] Names(ReadOnlySpan<byte> line, Delimiter d, Encoding encoding, List<Range> fields)
