@@ -50,8 +50,10 @@ public static class CoreTableReader
         }
         if (report.HasErrors) { report.Flush(); return null; }
 
-        var depths = new double[keep.Count];
-        var lines = new int[keep.Count];
+        // Every row kept (the usual case): the reader's arrays become the table's, with no copies.
+        bool allKept = keep.Count == raw.Length;
+        var depths = allKept ? raw : new double[keep.Count];
+        var lines = allKept ? table.Lines : new int[keep.Count];
         for (int k = 0; k < keep.Count; k++)
         {
             depths[k] = raw[keep[k]] + offsets[keep[k]];
@@ -69,6 +71,11 @@ public static class CoreTableReader
         foreach (string name in SignalNames(table, spec, header, report))
         {
             var column = table.Numeric[name];
+            if (allKept && order is null)
+            {
+                signals[name] = column;
+                continue;
+            }
             var values = new double[keep.Count];
             for (int k = 0; k < values.Length; k++) values[k] = column[keep[order?[k] ?? k]];
             signals[name] = values;

@@ -142,6 +142,16 @@ public sealed class DelimitedTextReaderTests : IDisposable
     }
 
     [Fact]
+    public void Quoted_cells_may_hold_the_delimiter()
+    {
+        var t = Read(_dir.Write("a.csv", "depth,comment,ms\n1,\"crack, 2 mm\",2\n2,\"said \"\"soupy\"\"\",\"3.5\"\n"));
+        Assert.NotNull(t);
+        Assert.Empty(_problems);
+        Assert.Equal(["comment"], t.TextOnlyColumns);
+        Assert.Equal([2.0, 3.5], t.Numeric["ms"]);
+    }
+
+    [Fact]
     public void Duplicate_header_is_an_error()
     {
         var t = Read(_dir.Write("a.csv", "depth,ms,ms\n1,2,3\n"));
