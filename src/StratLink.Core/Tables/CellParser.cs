@@ -3,14 +3,6 @@ using System.Text;
 
 namespace StratLink.Tables;
 
-/// <summary>What a table cell holds.</summary>
-internal enum CellKind
-{
-    Number,
-    Missing,
-    Text,
-}
-
 /// <summary>
 /// Parses table cells from their UTF-8 (or Latin-1: digits are ASCII in both) bytes without making
 /// strings. Invariant numbers; where the delimiter is not a comma, a decimal comma (<c>12,5</c>) is
