@@ -12,7 +12,7 @@ public class FigureTests
 {
     private static readonly XNamespace Svg = "http://www.w3.org/2000/svg";
 
-    private static (Workflows.LoadedProject, CompositeResult) Site(bool withAges)
+    private static (StratLink.Workflows.LoadedProject, CompositeResult) Site(bool withAges)
     {
         var a = Table("A", Depths(0, 200, 0.5), ("ms", d => Math.Sin(d / 9)), ("density", d => 1.4 + 0.1 * Math.Cos(d / 13)));
         var b = Table("B", Depths(0, 180, 0.5), ("ms", d => Math.Sin((d + 6) / 9)), ("density", d => 1.4 + 0.1 * Math.Cos((d + 6) / 13)));
