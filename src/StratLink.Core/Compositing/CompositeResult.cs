@@ -1,4 +1,5 @@
 using StratLink.Checks;
+using StratLink.Quantities;
 
 namespace StratLink.Compositing;
 
@@ -38,6 +39,13 @@ public sealed class CompositeResult
     public string ScaleNote => Standardised
         ? "z-scores: each core's signal centred on its mean and divided by its standard deviation over its usable samples"
         : "each signal in its own units";
+
+    /// <summary>One line for the run metadata (<c>run.json</c> methods): how the splice and the bands were made and what the values are.</summary>
+    public string MethodSummary =>
+        $"composite depth = {ReferenceCore} depth scale extended through the mappings, step {Grid.Step.ToString(System.Globalization.CultureInfo.InvariantCulture)} {Grid.Unit.Symbol()}; "
+        + $"splice {(Splice.Automatic ? "automatic" : "from the project file")}; "
+        + "stack: mean of cores (each core the mean of its alignment members), band 2.5-97.5 percentiles (Hyndman-Fan type 7) pooled over cores and members, n = cores with a value; "
+        + ScaleNote;
 
     /// <summary>Problems and notes: splice checks, cores left out.</summary>
     public FindingList Findings { get; }

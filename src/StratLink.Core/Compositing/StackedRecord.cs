@@ -37,6 +37,6 @@ public sealed class StackedRecord
     /// <summary>Number of cores with a value at the row (a core counts when at least half of its ensemble members give one).</summary>
     public IReadOnlyList<int> N { get; }
 
-    /// <summary>The splice's core at the row, carried by its median mapping.</summary>
+    /// <summary>The splice's core at the row, carried by its median mapping; NaN where that core has no value or lacks the signal.</summary>
     public IReadOnlyList<double> Spliced { get; }
 }

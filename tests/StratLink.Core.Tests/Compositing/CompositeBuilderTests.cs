@@ -139,6 +139,8 @@ public class CompositeBuilderTests
         Assert.Equal((80 - 50) / sd, ms.Mean[80], 9);
         Assert.Equal(0, ms.Hi[80] - ms.Lo[80], 9);
         Assert.Contains("z-scores", result.ScaleNote);
+        Assert.Contains("z-scores", result.MethodSummary);
+        Assert.Contains("splice automatic", result.MethodSummary);
     }
 
     [Fact]
