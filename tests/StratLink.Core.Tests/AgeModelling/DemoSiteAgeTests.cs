@@ -90,4 +90,28 @@ public class DemoSiteAgeTests
             if (coreId == site.VarveCoreId) Assert.True(share >= 0.9, $"{coreId}: coverage {share:P1}");
         }
     }
+
+    [Fact]
+    public void VarveTableIsReadFromTheWrittenDemoProject()
+    {
+        // The demo writer's varve table, read back through the loader, gives the generator's counted varves.
+        var site = DemoSiteGenerator.Generate(1);
+        string dir = Path.Combine(Path.GetTempPath(), $"stratlink-varves-{Guid.NewGuid():N}");
+        try
+        {
+            DemoSiteWriter.Write(site, dir);
+            string file = Path.Combine(dir, site.ProjectFileName);
+            var loaded = new LoadedProject(new ProjectDocument(file, site.Project, new FindingList(), new SourceMap(file)), site.Project, site.Tables, new FindingList());
+            var problems = new FindingList();
+            var layers = VarveLayerLoader.Load(loaded, problems);
+            Assert.Empty(problems);
+            var (tops, bottoms) = layers[site.Project.Ages.OfType<VarveCountControl>().Single().Id];
+            Assert.Equal(site.CountedVarves.Count, tops.Length);
+            Assert.Equal(site.CountedVarves[^1].Bottom, bottoms[^1], 1e-6);
+        }
+        finally
+        {
+            Directory.Delete(dir, recursive: true);
+        }
+    }
 }
