@@ -11,7 +11,7 @@ namespace StratLink.Alignment;
 /// </summary>
 public static class DtwSolver
 {
-    private const double QuarterTurn = Math.PI / 4;
+    internal const double QuarterTurn = Math.PI / 4;
 
     /// <summary>Refuses option and pattern combinations that have no meaning, with the reason.</summary>
     public static void Validate(StepPattern pattern, DtwOptions options)
@@ -23,6 +23,10 @@ public static class DtwSolver
     }
 
     public static DtwPath Solve<TCost>(TCost cost, StepPattern pattern, Band band, DtwOptions options, CancellationToken ct = default)
+        where TCost : struct, ILocalCost => SolveKeepingDirections(cost, pattern, band, options, ct).Path;
+
+    /// <summary>The optimal path and the banded table of directions taken (1-based production, 0 = start or unreachable).</summary>
+    internal static (DtwPath Path, byte[] Directions) SolveKeepingDirections<TCost>(TCost cost, StepPattern pattern, Band band, DtwOptions options, CancellationToken ct)
         where TCost : struct, ILocalCost
     {
         Validate(pattern, options);
@@ -32,7 +36,7 @@ public static class DtwSolver
         double[] lastRow = ReferenceEquals(pattern, StepPattern.Symmetric1) && !options.OpenBegin && options.RatePenalty == 0
             ? FillSymmetric1(cost, band, dirs, ct)
             : Fill(cost, pattern, band, options, dirs, ct);
-        return Backtrack(lastRow, dirs, pattern, band, options);
+        return (Backtrack(lastRow, dirs, pattern, band, options), dirs);
     }
 
     private static double[] Fill<TCost>(TCost cost, StepPattern pattern, Band band, DtwOptions options, byte[] dirs, CancellationToken ct)

@@ -32,7 +32,10 @@ public readonly struct SignalCost : ILocalCost
 
     public double Neutral { get; }
 
+    /// <summary>The same cost seen from cell (offsetI, offsetJ) as origin (a segment's own lattice).</summary>
     public SignalCost At(int offsetI, int offsetJ) => new(_a, _b, _w, Neutral, offsetI, offsetJ);
+
+    public SignalCost WithNeutral(double neutral) => new(_a, _b, _w, neutral, _offsetI, _offsetJ);
 
     public double Cost(int i, int j)
     {
