@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using StratLink.Alignment;
+using StratLink.Tests.TestSupport;
 
 namespace StratLink.Tests.Alignment;
 
@@ -32,6 +33,8 @@ public class MlpyComparisonTests
     internal static string RunPython(string script, string stdin)
     {
         const string python = "/usr/bin/python3";
+        try { RepoPaths.EnsureAptPackages("python3-mlpy"); }
+        catch (InvalidOperationException e) { Assert.Fail($"python3-mlpy is not installed and could not be installed here ({e.Message}); .ci/run installs it with 'apt-get install -y python3-mlpy'."); }
         if (!File.Exists(python)) Assert.Fail($"{python} is missing; .ci/run installs python3-mlpy (apt-get install -y python3-mlpy), which brings it.");
         var psi = new ProcessStartInfo(python, ["-c", script])
         {
