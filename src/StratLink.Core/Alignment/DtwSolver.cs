@@ -32,7 +32,8 @@ public static class DtwSolver
         Validate(pattern, options);
         if (band.Rows == 0 || band.Columns == 0) throw new ArgumentException("Both series need at least one element.");
         if (band.Cells > Array.MaxLength) throw new ArgumentException($"The band holds {band.Cells} cells, more than one alignment can store; narrow the window or coarsen the grid step.");
-        var dirs = new byte[band.Cells];
+        // Every cell is written before it is read: no need to zero the table.
+        var dirs = GC.AllocateUninitializedArray<byte>((int)band.Cells);
         double[] lastRow = ReferenceEquals(pattern, StepPattern.Symmetric1) && !options.OpenBegin && options.RatePenalty == 0
             ? FillSymmetric1(cost, band, dirs, ct)
             : Fill(cost, pattern, band, options, dirs, ct);
@@ -131,29 +132,41 @@ public static class DtwSolver
         var hi = band.Hi;
         // The range of valid values each array holds; stale ones are cleared before reuse.
         int curLo = 0, curHi = -1, prevLo = 0, prevHi = -1;
+        var rowCost = new double[m];
         long k = 0;
         for (int i = 0; i < n; i++)
         {
             if ((i & 255) == 0) ct.ThrowIfCancellationRequested();
             int l = lo[i], h = hi[i];
             if (curHi >= curLo) Array.Fill(cur, double.PositiveInfinity, curLo + 1, curHi - curLo + 1);
-            int start = l;
+            if (h < l) { (prev, cur) = (cur, prev); (curLo, curHi, prevLo, prevHi) = (prevLo, prevHi, l, h); continue; }
+            var d = rowCost.AsSpan(0, h - l + 1);
+            cost.Row(i, l, d);
+            // prevRow[j] is column j - 1 of row i - 1 (the diagonal), prevRow[j + 1] column j (up), curRow[j] column j - 1 (left).
+            var prevRow = prev.AsSpan(l, h - l + 2);
+            var curRow = cur.AsSpan(l, h - l + 2);
+            var dir = dirs.AsSpan((int)k, h - l + 1);
+            int start = 0;
             if (i == 0 && l == 0)
             {
-                cur[1] = cost.Cost(0, 0);
-                dirs[k++] = 0;
+                curRow[1] = d[0];
+                dir[0] = 0;
                 start = 1;
             }
-            for (int j = start; j <= h; j++)
+            double left = curRow[start];
+            for (int t = start; t < d.Length; t++)
             {
-                double diag = prev[j], left = cur[j], up = prev[j + 1];
-                double best = diag;
-                byte dir = 1;
-                if (left < best) { best = left; dir = 2; }
-                if (up < best) { best = up; dir = 3; }
-                cur[j + 1] = best + cost.Cost(i, j);
-                dirs[k++] = double.IsPositiveInfinity(best) ? (byte)0 : dir;
+                double diag = prevRow[t], up = prevRow[t + 1];
+                // Only min(left, min(diag, up)) + d is on the serial chain along the row; the
+                // direction (first minimum in the order diagonal, left, up) is computed beside it.
+                double du = up < diag ? up : diag;
+                double best = left < du ? left : du;
+                int code = left < diag ? (up < left ? 3 : 2) : (up < diag ? 3 : 1);
+                dir[t] = best == double.PositiveInfinity ? (byte)0 : (byte)code;
+                left = best + d[t];
+                curRow[t + 1] = left;
             }
+            k += d.Length;
             (prev, cur) = (cur, prev);
             (curLo, curHi, prevLo, prevHi) = (prevLo, prevHi, l, h);
         }

@@ -17,4 +17,9 @@ public readonly struct EuclideanCost(double[] x, double[] y, int dims) : ILocalC
         }
         return Math.Sqrt(s);
     }
+
+    public void Row(int i, int j0, Span<double> into)
+    {
+        for (int k = 0; k < into.Length; k++) into[k] = Cost(i, j0 + k);
+    }
 }

@@ -7,4 +7,7 @@ namespace StratLink.Alignment;
 public interface ILocalCost
 {
     double Cost(int i, int j);
+
+    /// <summary>Costs of row i, columns j0 .. j0 + into.Length - 1 (the hot loops fill a row at a time).</summary>
+    void Row(int i, int j0, Span<double> into);
 }

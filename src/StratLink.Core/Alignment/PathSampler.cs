@@ -5,10 +5,12 @@ namespace StratLink.Alignment;
 /// The local cost is read as a negative log-likelihood at temperature T: a path c has probability
 /// proportional to exp(-C(c) / T), C being the same weighted cost the optimal path minimises (rate
 /// penalty included). The forward recursion of that model is the DTW recursion with min replaced by
-/// log-sum-exp, F(i,j) = log sum_p exp(F(origin_p) - cost_p / T), kept in log space as float within
-/// the band. Paths are drawn by stochastic backtracking (forward filtering, backward sampling): from
-/// the end cell, production p is chosen with probability exp(F(origin_p) - cost_p / T - F(i,j)),
-/// which samples paths exactly from the posterior given the table.
+/// a sum of exponentials, F(i,j) = log sum_p exp(F(origin_p) - cost_p / T). It is run in linear
+/// space with one scale per row (P(i,j) = exp(F(i,j) - s_i), each row's largest P = 1, so one
+/// exponential per cell and no underflow of what matters) and stored as float within the band.
+/// Paths are drawn by stochastic backtracking (forward filtering, backward sampling): from the end
+/// cell, production p is chosen with probability exp(F(origin_p) - cost_p / T - F(i,j)), which draws
+/// paths exactly from the posterior given the table.
 /// </summary>
 internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
 {
@@ -18,7 +20,8 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
     private readonly DtwOptions _options;
     private readonly double _invT;
     private readonly byte[]? _directions;
-    private readonly float[] _f;
+    private readonly float[] _p;
+    private readonly double[] _rowLogScale;
     private readonly double _endBiasPerColumn;
 
     /// <param name="directions">The optimal run's directions, needed only when a rate penalty is on.</param>
@@ -33,24 +36,97 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
         _directions = options.RatePenalty > 0 ? directions : null;
         _endBiasPerColumn = endBiasPerColumn;
         if (band.Cells > Array.MaxLength) throw new ArgumentException($"The band holds {band.Cells} cells, too many for one ensemble table; narrow the window or add ties.");
-        _f = new float[band.Cells];
+        _p = GC.AllocateUninitializedArray<float>((int)band.Cells);
+        _rowLogScale = new double[band.Rows];
         Forward(ct);
+    }
+
+    /// <summary>log P of a band cell plus its row's scale: F(i, j); -inf where unreachable.</summary>
+    private double F(int i, int j)
+    {
+        float v = _p[_band.Index(i, j)];
+        return v > 0 ? Math.Log(v) + _rowLogScale[i] : double.NegativeInfinity;
+    }
+
+    private double PenaltyOf(Production prod, int oi, int oj)
+    {
+        if (_directions is null || oi < 0) return 0;
+        byte od = _directions[_band.Index(oi, oj)];
+        return od == 0 ? 0 : _options.RatePenalty * Math.Abs(prod.Angle - _prods[od - 1].Angle) / DtwSolver.QuarterTurn;
     }
 
     private void Forward(CancellationToken ct)
     {
+        int n = _band.Rows, m = _band.Columns;
+        int k = _prods.Max(p => p.OriginI) + 1;
         var lo = _band.Lo;
         var hi = _band.Hi;
-        Span<double> l = stackalloc double[_prods.Length];
-        for (int i = 0; i < _band.Rows; i++)
+        // Rolling rows: e = exp(-d / T) and P (each row relative to its own scale), zero outside the band.
+        var eRing = new double[k][];
+        var pRing = new double[k][];
+        for (int r = 0; r < k; r++) { eRing[r] = new double[m]; pRing[r] = new double[m]; }
+        var dRow = new double[m];
+        var adjust = new double[k + 1];
+        for (int i = 0; i < n; i++)
         {
             if ((i & 127) == 0) ct.ThrowIfCancellationRequested();
-            long off = _band.Offset(i) - lo[i];
-            for (int j = lo[i]; j <= hi[i]; j++)
+            int slot = i % k;
+            var eRow = eRing[slot];
+            var pRow = pRing[slot];
+            Array.Clear(eRow);
+            Array.Clear(pRow);
+            double prevScale = i > 0 ? _rowLogScale[i - 1] : 0;
+            // Factor bringing row i - b to the scale of row i - 1 (row i itself is built on that scale).
+            for (int b = 1; b <= k; b++) adjust[b] = i - b >= 0 ? Math.Exp(_rowLogScale[i - b] - prevScale) : Math.Exp(-prevScale);
+            adjust[0] = 1;
+            int l = lo[i], h = hi[i];
+            if (h < l) { _rowLogScale[i] = prevScale; continue; }
+            var d = dRow.AsSpan(0, h - l + 1);
+            _cost.Row(i, l, d);
+            for (int t = 0; t < d.Length; t++) eRow[l + t] = Math.Exp(-d[t] * _invT);
+            for (int j = l; j <= h; j++)
             {
-                double d0 = _cost.Cost(i, j);
-                if (i == 0 && j == 0 && !_options.OpenBegin) { _f[off + j] = (float)(-d0 * _invT); continue; }
-                _f[off + j] = (float)LogSumExp(Logits(i, j, d0, l));
+                if (i == 0 && j == 0 && !_options.OpenBegin) { pRow[0] = eRow[0]; continue; }
+                double sum = 0;
+                foreach (var prod in _prods)
+                {
+                    int oi = i - prod.OriginI, oj = j - prod.OriginJ;
+                    if (oj < 0) continue;
+                    double v;
+                    if (oi >= 0) v = pRing[oi % k][oj] * adjust[prod.OriginI];
+                    else if (oi == -1 && _options.OpenBegin) v = adjust[prod.OriginI];
+                    else continue;
+                    if (v == 0) continue;
+                    foreach (var st in prod.CellArray)
+                    {
+                        int ci = i - st.BackI, cj = j - st.BackJ;
+                        if (ci < 0) continue; // the virtual row of an open begin costs nothing
+                        if (st.BackI != 0 || st.BackJ != 0)
+                        {
+                            if (_options.StrictBand && !_band.Contains(ci, cj)) { v = 0; break; }
+                            if (!_band.Contains(ci, cj)) { v *= Math.Exp(-st.Weight * _cost.Cost(ci, cj) * _invT); continue; }
+                        }
+                        double e = eRing[ci % k][cj];
+                        v *= st.Weight == 1 ? e : st.Weight == 2 ? e * e : Math.Pow(e, st.Weight);
+                    }
+                    if (_directions is not null && oi >= 0) v *= Math.Exp(-PenaltyOf(prod, oi, oj) * _invT);
+                    sum += v;
+                }
+                pRow[j] = sum;
+            }
+            double max = 0;
+            for (int j = l; j <= h; j++) max = Math.Max(max, pRow[j]);
+            long off = _band.Offset(i) - l;
+            if (max > 0)
+            {
+                double inv = 1 / max;
+                for (int j = l; j <= h; j++) { pRow[j] *= inv; _p[off + j] = (float)pRow[j]; }
+                _rowLogScale[i] = prevScale + Math.Log(max);
+            }
+            else
+            {
+                for (int j = l; j <= h; j++) _p[off + j] = 0;
+                _rowLogScale[i] = prevScale;
             }
         }
     }
@@ -68,7 +144,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
             if (oi >= 0)
             {
                 if (!_band.Contains(oi, oj)) continue;
-                f = _f[_band.Index(oi, oj)];
+                f = F(oi, oj);
                 if (double.IsNegativeInfinity(f)) continue;
             }
             else if (oi == -1 && _options.OpenBegin) f = 0;
@@ -84,12 +160,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
                 c += st.Weight * _cost.Cost(ci, cj);
             }
             if (!ok) continue;
-            if (_directions is not null && oi >= 0)
-            {
-                byte od = _directions[_band.Index(oi, oj)];
-                if (od != 0) c += _options.RatePenalty * Math.Abs(prod.Angle - _prods[od - 1].Angle) / DtwSolver.QuarterTurn;
-            }
-            l[p] = f - c * _invT;
+            l[p] = f - (c + PenaltyOf(prod, oi, oj)) * _invT;
         }
         return l;
     }
@@ -149,17 +220,19 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
     {
         int n = _band.Rows;
         int lo = _band.Lo[n - 1], hi = _band.Hi[n - 1];
-        long off = _band.Offset(n - 1) - lo;
+        // One row, one scale: log P suffices.
+        var f = new double[hi - lo + 1];
+        for (int j = lo; j <= hi; j++) f[j - lo] = F(n - 1, j) + _endBiasPerColumn * j;
         double max = double.NegativeInfinity;
-        for (int j = lo; j <= hi; j++) max = Math.Max(max, _f[off + j] + _endBiasPerColumn * j);
+        foreach (double v in f) max = Math.Max(max, v);
         if (double.IsNegativeInfinity(max)) throw new InvalidOperationException("No end cell of the ensemble lattice can be reached.");
         double total = 0;
-        for (int j = lo; j <= hi; j++) total += Math.Exp(_f[off + j] + _endBiasPerColumn * j - max);
+        foreach (double v in f) total += Math.Exp(v - max);
         double u = rng.NextDouble() * total, acc = 0;
         int pick = lo;
         for (int j = lo; j <= hi; j++)
         {
-            double w = Math.Exp(_f[off + j] + _endBiasPerColumn * j - max);
+            double w = Math.Exp(f[j - lo] - max);
             if (w == 0) continue;
             pick = j;
             acc += w;

@@ -59,4 +59,9 @@ public readonly struct SignalCost : ILocalCost
             if (_w[k] > 0 && !double.IsNaN(_a[a + k] - _b[b + k])) return false;
         return true;
     }
+
+    public void Row(int i, int j0, Span<double> into)
+    {
+        for (int k = 0; k < into.Length; k++) into[k] = Cost(i, j0 + k);
+    }
 }
