@@ -309,18 +309,21 @@ public static class DtwCoreAligner
 
     private static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members)
     {
-        var x = new List<double>(core.Count);
-        var y = new List<double>(core.Count);
-        var v = new double[members.Length];
-        for (int i = 0; i < core.Count; i++)
+        var x = new double[core.Count];
+        var y = new double[core.Count];
+        Parallel.For(0, (core.Count + 1023) / 1024, chunk =>
         {
-            double z = core.DepthAt(i);
-            for (int e = 0; e < v.Length; e++) v[e] = members[e].ToCompositeValue(z);
-            Array.Sort(v);
-            x.Add(z);
-            y.Add(Statistics.PercentileSorted(v, 50));
-        }
-        return Thin(core.CoreId, unit, x, y);
+            var v = new double[members.Length];
+            for (int i = chunk * 1024; i < Math.Min(core.Count, (chunk + 1) * 1024); i++)
+            {
+                double z = core.DepthAt(i);
+                for (int e = 0; e < v.Length; e++) v[e] = members[e].ToCompositeValue(z);
+                Array.Sort(v);
+                x[i] = z;
+                y[i] = Statistics.PercentileSorted(v, 50);
+            }
+        });
+        return Thin(core.CoreId, unit, [.. x], [.. y]);
     }
 
     /// <summary>Drops knots that lie on the line through their neighbours (long runs at one rate).</summary>
