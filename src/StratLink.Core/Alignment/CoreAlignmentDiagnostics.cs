@@ -30,6 +30,11 @@ public sealed record CoreAlignmentDiagnostics
 
     public int Seed { get; init; }
 
+    /// <summary>Whether the core's start and end were free in the reference (after resolving auto).</summary>
+    public bool OpenBegin { get; init; }
+
+    public bool OpenEnd { get; init; }
+
     /// <summary>The optimal (least-cost) mapping; the ensemble's median is the one reported.</summary>
     public DepthMapping? Optimal { get; init; }
 }

@@ -33,12 +33,16 @@ public static class DtwCoreAligner
         if (core.Signals.Length != weights.Length || reference.Signals.Length != weights.Length)
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
-        DtwSolver.Validate(options.Pattern, new DtwOptions { OpenBegin = options.OpenBegin, OpenEnd = options.OpenEnd });
         int n = core.Count, m = reference.Count;
         var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         var boxes = TieBoxes(core, reference, ties, findings);
+        options = ResolveOpenEnds(options, boxes, n, m, unit);
         var centre = CentreLine(boxes, n, m, options, unit);
-        cost = cost.WithNeutral(NeutralCost(cost, centre, n, m));
+        double neutral = NeutralCost(cost, centre, n, m);
+        cost = cost.WithNeutral(neutral);
+        // Unmatched reference at an open end costs what matching it typically would, per unit of
+        // pattern weight a reference column carries (none under N-normalised patterns).
+        double completion = options.Pattern.Normalisation == StepNormalisation.N ? 0 : neutral;
         var band = BuildBand(centre, boxes, n, m, options);
         var segments = Segments(boxes, n, m, options);
 
@@ -47,13 +51,13 @@ public static class DtwCoreAligner
         var directions = new byte[segments.Count][];
         var slices = new Band[segments.Count];
         var parallel = new ParallelOptions { CancellationToken = ct };
-        Parallel.For(0, segments.Count, parallel, s =>
+        void SolveSegments(double completionCost) => Parallel.For(0, segments.Count, parallel, s =>
         {
             var g = segments[s];
             slices[s] = band.Slice(g.R0, g.R1, g.C0, g.C1);
             try
             {
-                var (path, dirs) = DtwSolver.SolveKeepingDirections(cost.At(g.R0, g.C0), options.Pattern, slices[s], g.Options(options), ct);
+                var (path, dirs) = DtwSolver.SolveKeepingDirections(cost.At(g.R0, g.C0), options.Pattern, slices[s], g.Options(options, completionCost), ct);
                 optimal[s] = path;
                 if (options.RatePenalty > 0) directions[s] = dirs;
             }
@@ -62,6 +66,18 @@ public static class DtwCoreAligner
                 throw new InvalidOperationException($"Core {core.CoreId}, depths {core.DepthAt(g.R0):0.###}-{core.DepthAt(g.R1):0.###}: {e.Message}", e);
             }
         });
+        SolveSegments(completion);
+        if (completion > 0 && (options.OpenBegin == true || options.OpenEnd == true))
+        {
+            // The neutral level (median cost along the straight-line-ties mapping) exceeds what a good
+            // match costs, so unmatched reference would look dear and the path would run along it;
+            // solve again with the cost per unit weight of the path just found.
+            double weight = 0;
+            for (int s = 0; s < segments.Count; s++)
+                weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
+            completion = Math.Min(completion, optimal.Sum(p => p.Distance) / weight);
+            SolveSegments(completion);
+        }
 
         var (pathI, pathJ) = Join(optimal, segments);
         double distance = optimal.Sum(p => p.Distance);
@@ -82,6 +98,8 @@ public static class DtwCoreAligner
             AutocorrelationCells = tau,
             Temperature = temperature,
             Seed = options.Seed,
+            OpenBegin = options.OpenBegin == true,
+            OpenEnd = options.OpenEnd == true,
             Optimal = optimalMapping,
         };
         if (options.Ensemble == 0) return (new MappingEnsemble(optimalMapping, []), diagnostics);
@@ -91,10 +109,8 @@ public static class DtwCoreAligner
         Parallel.For(0, segments.Count, parallel, s =>
         {
             var g = segments[s];
-            var o = g.Options(options);
-            double endBias = o.OpenEnd && options.Pattern.Normalisation == StepNormalisation.NPlusM && double.IsFinite(optimal[s].NormalisedDistance)
-                ? optimal[s].NormalisedDistance / temperature // the expected cost of one more unit of normaliser, given back
-                : 0;
+            var o = g.Options(options, completion);
+            double endBias = o.OpenEnd ? completion / temperature : 0; // the completion cost of the columns left after the end
             var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
             var rng = new Random(Seeds.Derive(options.Seed, core.CoreId, s));
             var drawn = new (int[] I, int[] J)[options.Ensemble];
@@ -119,8 +135,8 @@ public static class DtwCoreAligner
 
     private readonly record struct Segment(int R0, int C0, int R1, int C1, bool OpenBegin, bool OpenEnd)
     {
-        public DtwOptions Options(DtwCoreOptions o) =>
-            new() { OpenBegin = OpenBegin, OpenEnd = OpenEnd, StrictBand = true, RatePenalty = o.RatePenalty };
+        public DtwOptions Options(DtwCoreOptions o, double completion) =>
+            new() { OpenBegin = OpenBegin, OpenEnd = OpenEnd, StrictBand = true, RatePenalty = o.RatePenalty, CompletionCostPerColumn = completion };
     }
 
     private static List<TieBox> TieBoxes(PreparedSignals core, PreparedSignals reference, IReadOnlyList<TiePoint> ties, FindingList findings)
@@ -148,12 +164,30 @@ public static class DtwCoreAligner
         return boxes;
     }
 
+    /// <summary>
+    /// Auto open ends: a core whose ties place its top (bottom) more than 1% of the reference's
+    /// length inside the reference has lost that part (or is shorter); without ties, ends are closed.
+    /// </summary>
+    private static DtwCoreOptions ResolveOpenEnds(DtwCoreOptions o, List<TieBox> boxes, int n, int m, DepthUnit unit)
+    {
+        if (o.OpenBegin is not null && o.OpenEnd is not null) return o;
+        bool begin = false, end = false;
+        if (boxes.Count > 0)
+        {
+            var line = TieNetwork.StraightLines("grid", unit, boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList(), 0, n - 1);
+            double margin = Math.Max(2, 0.01 * m);
+            begin = line.ToCompositeValue(0) > margin;
+            end = line.ToCompositeValue(n - 1) < m - 1 - margin;
+        }
+        return o with { OpenBegin = o.OpenBegin ?? begin, OpenEnd = o.OpenEnd ?? end };
+    }
+
     /// <summary>The straight-line-ties mapping in grid cells (row to column); the corners join it at closed ends.</summary>
     private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit)
     {
         var knots = boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList();
-        if (!o.OpenBegin || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, 0, 0, ""));
-        if (!o.OpenEnd || knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1, 0, ""));
+        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, 0, 0, ""));
+        if (o.OpenEnd != true || knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1, 0, ""));
         knots = knots.DistinctBy(k => k.CoreDepth).ToList();
         return TieNetwork.StraightLines("grid", unit, knots, 0, n - 1);
     }
@@ -188,8 +222,8 @@ public static class DtwCoreAligner
             lo[i] = Math.Clamp((int)Math.Floor(c) - w, 0, m - 1);
             hi[i] = Math.Clamp((int)Math.Ceiling(c) + w, 0, m - 1);
         }
-        if (!o.OpenBegin) lo[0] = 0;
-        if (!o.OpenEnd) hi[n - 1] = m - 1;
+        if (o.OpenBegin != true) lo[0] = 0;
+        if (o.OpenEnd != true) hi[n - 1] = m - 1;
         foreach (var b in boxes)
         {
             int j0 = Math.Max(0, b.J - b.K), j1 = Math.Min(m - 1, b.J + b.K);
@@ -225,10 +259,10 @@ public static class DtwCoreAligner
         foreach (var b in boxes.Where(b => b.K == 0))
         {
             if (b.I == r0 && b.J == c0) continue;
-            segs.Add(new Segment(r0, c0, b.I, b.J, segs.Count == 0 && o.OpenBegin, false));
+            segs.Add(new Segment(r0, c0, b.I, b.J, segs.Count == 0 && o.OpenBegin == true, false));
             (r0, c0) = (b.I, b.J);
         }
-        segs.Add(new Segment(r0, c0, n - 1, m - 1, segs.Count == 0 && o.OpenBegin, o.OpenEnd));
+        segs.Add(new Segment(r0, c0, n - 1, m - 1, segs.Count == 0 && o.OpenBegin == true, o.OpenEnd == true));
         return segs;
     }
 

@@ -13,8 +13,11 @@ public sealed record DtwCoreOptions
     /// <summary>Number of sampled paths; 0 = the optimal path only.</summary>
     public int Ensemble { get; init; } = 200;
 
-    public bool OpenBegin { get; init; }
-    public bool OpenEnd { get; init; }
+    /// <summary>Free start in the reference (lost top); null = auto: open when the ties place the core's top more than 1% of the reference below its top.</summary>
+    public bool? OpenBegin { get; init; }
+
+    /// <summary>Free end in the reference; null = auto, as for <see cref="OpenBegin"/>.</summary>
+    public bool? OpenEnd { get; init; }
     public double RatePenalty { get; init; }
     public int Seed { get; init; } = 42;
 

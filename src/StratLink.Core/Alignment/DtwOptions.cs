@@ -18,5 +18,13 @@ public sealed record DtwOptions
     /// </summary>
     public double RatePenalty { get; init; }
 
+    /// <summary>
+    /// When set, open ends are scored by completion instead of normalisation: every reference column
+    /// left unmatched before the start or after the end costs this much, so a path is neither drawn
+    /// to match less of the reference nor refused for a pattern without a normaliser. Null = the R
+    /// package dtw's rules (normalised open end, open begin only for N-normalised patterns).
+    /// </summary>
+    public double? CompletionCostPerColumn { get; init; }
+
     public static readonly DtwOptions Default = new();
 }

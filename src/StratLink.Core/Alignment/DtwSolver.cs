@@ -16,6 +16,7 @@ public static class DtwSolver
     /// <summary>Refuses option and pattern combinations that have no meaning, with the reason.</summary>
     public static void Validate(StepPattern pattern, DtwOptions options)
     {
+        if (options.CompletionCostPerColumn is not null) return;
         if (options.OpenEnd && pattern.Normalisation == StepNormalisation.None)
             throw new ArgumentException($"Open-end alignments need a normalisable step pattern; {pattern.Name} is not normalisable (use symmetric2, asymmetric, symmetricP1, ...).");
         if (options.OpenBegin && pattern.Normalisation != StepNormalisation.N)
@@ -57,6 +58,7 @@ public static class DtwSolver
         var prods = new Production[pattern.Productions.Count];
         for (int p = 0; p < prods.Length; p++) prods[p] = pattern.Productions[p];
         bool openBegin = options.OpenBegin, strict = options.StrictBand;
+        double completion = options.CompletionCostPerColumn ?? 0;
         double penalty = options.RatePenalty;
         var lo = band.Lo;
         var hi = band.Hi;
@@ -90,7 +92,7 @@ public static class DtwSolver
                         c = ring[oi % k][oj];
                         if (double.IsPositiveInfinity(c)) continue;
                     }
-                    else if (oi == -1 && openBegin) c = 0;
+                    else if (oi == -1 && openBegin) c = completion * oj;
                     else continue;
                     var cells = prod.CellArray;
                     for (int s = 0; s < cells.Length; s++)
@@ -185,7 +187,7 @@ public static class DtwSolver
             double bestNorm = double.PositiveInfinity;
             for (int j = band.Lo[n - 1]; j <= band.Hi[n - 1]; j++)
             {
-                double v = lastRow[j] / pattern.Normaliser(n, j);
+                double v = options.CompletionCostPerColumn is double c ? lastRow[j] + c * (m - 1 - j) : lastRow[j] / pattern.Normaliser(n, j);
                 if (v < bestNorm) { bestNorm = v; jEnd = j; }
             }
         }

@@ -7,7 +7,8 @@ namespace StratLink.Alignment;
 /// penalty included). The forward recursion of that model is the DTW recursion with min replaced by
 /// a sum of exponentials, F(i,j) = log sum_p exp(F(origin_p) - cost_p / T). It is run in linear
 /// space with one scale per row (P(i,j) = exp(F(i,j) - s_i), each row's largest P = 1, so one
-/// exponential per cell and no underflow of what matters) and stored as float within the band.
+/// exponential per cell) and stored as float log P within the band (a float P would flush the
+/// tiny values a sampled path can still need to zero).
 /// Paths are drawn by stochastic backtracking (forward filtering, backward sampling): from the end
 /// cell, production p is chosen with probability exp(F(origin_p) - cost_p / T - F(i,j)), which draws
 /// paths exactly from the posterior given the table.
@@ -20,9 +21,10 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
     private readonly DtwOptions _options;
     private readonly double _invT;
     private readonly byte[]? _directions;
-    private readonly float[] _p;
+    private readonly float[] _logP;
     private readonly double[] _rowLogScale;
     private readonly double _endBiasPerColumn;
+    private readonly double _startCostPerColumn;
 
     /// <param name="directions">The optimal run's directions, needed only when a rate penalty is on.</param>
     /// <param name="endBiasPerColumn">Log-weight added per reference column when an open end is drawn (see <see cref="DtwCoreAligner"/>).</param>
@@ -35,18 +37,15 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
         _invT = 1.0 / temperature;
         _directions = options.RatePenalty > 0 ? directions : null;
         _endBiasPerColumn = endBiasPerColumn;
+        _startCostPerColumn = options.CompletionCostPerColumn ?? 0;
         if (band.Cells > Array.MaxLength) throw new ArgumentException($"The band holds {band.Cells} cells, too many for one ensemble table; narrow the window or add ties.");
-        _p = GC.AllocateUninitializedArray<float>((int)band.Cells);
+        _logP = GC.AllocateUninitializedArray<float>((int)band.Cells);
         _rowLogScale = new double[band.Rows];
         Forward(ct);
     }
 
     /// <summary>log P of a band cell plus its row's scale: F(i, j); -inf where unreachable.</summary>
-    private double F(int i, int j)
-    {
-        float v = _p[_band.Index(i, j)];
-        return v > 0 ? Math.Log(v) + _rowLogScale[i] : double.NegativeInfinity;
-    }
+    private double F(int i, int j) => _logP[_band.Index(i, j)] + _rowLogScale[i];
 
     private double PenaltyOf(Production prod, int oi, int oj)
     {
@@ -94,7 +93,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
                     if (oj < 0) continue;
                     double v;
                     if (oi >= 0) v = pRing[oi % k][oj] * adjust[prod.OriginI];
-                    else if (oi == -1 && _options.OpenBegin) v = adjust[prod.OriginI];
+                    else if (oi == -1 && _options.OpenBegin) v = adjust[prod.OriginI] * Math.Exp(-_startCostPerColumn * oj * _invT);
                     else continue;
                     if (v == 0) continue;
                     foreach (var st in prod.CellArray)
@@ -120,12 +119,12 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
             if (max > 0)
             {
                 double inv = 1 / max;
-                for (int j = l; j <= h; j++) { pRow[j] *= inv; _p[off + j] = (float)pRow[j]; }
+                for (int j = l; j <= h; j++) { pRow[j] *= inv; _logP[off + j] = (float)Math.Log(pRow[j]); }
                 _rowLogScale[i] = prevScale + Math.Log(max);
             }
             else
             {
-                for (int j = l; j <= h; j++) _p[off + j] = 0;
+                for (int j = l; j <= h; j++) _logP[off + j] = float.NegativeInfinity;
                 _rowLogScale[i] = prevScale;
             }
         }
@@ -147,7 +146,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
                 f = F(oi, oj);
                 if (double.IsNegativeInfinity(f)) continue;
             }
-            else if (oi == -1 && _options.OpenBegin) f = 0;
+            else if (oi == -1 && _options.OpenBegin) f = -_startCostPerColumn * oj * _invT;
             else continue;
             double c = 0;
             bool ok = true;

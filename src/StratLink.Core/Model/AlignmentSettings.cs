@@ -38,11 +38,14 @@ public sealed record AlignmentSettings
     /// <summary>Cost per 45 degrees of change in step direction (accumulation-rate change); 0 = plain DTW.</summary>
     public double RatePenalty { get; init; }
 
-    /// <summary>A core's top may match anywhere in the reference (needs an N-normalised pattern such as asymmetric).</summary>
-    public bool OpenBegin { get; init; }
+    /// <summary>
+    /// A core's top may match anywhere in the reference (a lost top). Null = auto: open when the
+    /// core's marker ties place its top clearly below the reference's top.
+    /// </summary>
+    public bool? OpenBegin { get; init; }
 
-    /// <summary>A core's bottom may match anywhere in the reference (needs a normalisable pattern).</summary>
-    public bool OpenEnd { get; init; }
+    /// <summary>A core's bottom may match anywhere in the reference. Null = auto, as for <see cref="OpenBegin"/>.</summary>
+    public bool? OpenEnd { get; init; }
 
     /// <summary>Seed of the alignment ensemble; null = the age model's seed.</summary>
     public int? Seed { get; init; }

@@ -36,8 +36,8 @@ internal static class AlignmentSection
             Derivative = m.Bool("derivative") ?? s.Derivative,
             Detrend = m.Bool("detrend") ?? s.Detrend,
             RatePenalty = m.Double("rate_penalty") ?? s.RatePenalty,
-            OpenBegin = m.Bool("open_begin") ?? s.OpenBegin,
-            OpenEnd = m.Bool("open_end") ?? s.OpenEnd,
+            OpenBegin = BoolOrAuto(m, "open_begin"),
+            OpenEnd = BoolOrAuto(m, "open_end"),
             Seed = m.Int("seed"),
         };
         if (s.Window is <= 0 or > 1) m.Error("window", $"the band half-width is a fraction of the longer core, between 0 and 1 (found {s.Window})");
@@ -45,17 +45,19 @@ internal static class AlignmentSection
         if (!AlignmentMethods.All.Contains(s.Method)) m.Error("method", $"unknown alignment method '{s.Method}' ({string.Join(" or ", AlignmentMethods.All)})");
         if (StepPattern.Find(s.Pattern) is not { } pattern)
             m.Error("pattern", $"unknown step pattern '{s.Pattern}' ({string.Join(", ", StepPattern.Names)})");
-        else
-        {
-            s = s with { Pattern = pattern.Name };
-            try { DtwSolver.Validate(pattern, new DtwOptions { OpenBegin = s.OpenBegin, OpenEnd = s.OpenEnd }); }
-            catch (ArgumentException e) { m.Error(s.OpenBegin ? "open_begin" : "open_end", e.Message); }
-        }
+        else s = s with { Pattern = pattern.Name };
         if (s.Step is <= 0) m.Error("step", $"the grid step must be positive (found {s.Step})");
         if (!StandardiseMethods.All.Contains(s.Standardise)) m.Error("standardise", $"unknown standardisation '{s.Standardise}' ({string.Join(" or ", StandardiseMethods.All)})");
         if (s.RatePenalty < 0) m.Error("rate_penalty", "the rate-change penalty cannot be negative (0 = off)");
         m.Finish();
         return s;
+    }
+
+    /// <summary>true, false or auto (null).</summary>
+    private static bool? BoolOrAuto(YamlMap m, string key)
+    {
+        if (m.Get(key) is YamlScalarNode { Value: { } v } && v.Trim().Equals("auto", StringComparison.OrdinalIgnoreCase)) return null;
+        return m.Bool(key);
     }
 
     public static YamlMappingNode Write(AlignmentSettings s)
@@ -78,8 +80,8 @@ internal static class AlignmentSection
         if (s.Derivative) n.Add("derivative", YamlOut.Bool(true));
         if (s.Detrend) n.Add("detrend", YamlOut.Bool(true));
         if (s.RatePenalty != 0) n.Add("rate_penalty", YamlOut.Num(s.RatePenalty));
-        if (s.OpenBegin) n.Add("open_begin", YamlOut.Bool(true));
-        if (s.OpenEnd) n.Add("open_end", YamlOut.Bool(true));
+        if (s.OpenBegin is bool ob) n.Add("open_begin", YamlOut.Bool(ob));
+        if (s.OpenEnd is bool oe) n.Add("open_end", YamlOut.Bool(oe));
         if (s.Seed is int seed) n.Add("seed", YamlOut.Num(seed));
         return n;
     }
