@@ -1,5 +1,6 @@
-using System.Text;
+using System.Globalization;
 using StratLink.Compositing;
+using StratLink.ProjectIO;
 using StratLink.Workflows;
 
 namespace StratLink.Export;
@@ -7,8 +8,6 @@ namespace StratLink.Export;
 /// <summary>Writes the compositing stage's tables and figures into an output folder.</summary>
 public static class CompositeOutputs
 {
-    private static readonly UTF8Encoding Utf8NoBom = new(false);
-
     /// <summary>One table to a writer (the <c>export</c> command's single-table form).</summary>
     public static void WriteTable(CompositeResult result, CompositeTableKind kind, TextWriter output, TableFormat format = TableFormat.Csv)
     {
@@ -41,12 +40,12 @@ public static class CompositeOutputs
         return files;
     }
 
-    /// <summary>Writes through a temporary file beside the target, so a reader never sees half a table.</summary>
+    /// <summary>Writes through <see cref="AtomicFile"/>, so a reader never sees half a table.</summary>
     private static string WriteFile(string path, Action<TextWriter> write)
     {
-        string temp = path + ".tmp";
-        using (var w = new StreamWriter(temp, false, Utf8NoBom)) write(w);
-        File.Move(temp, path, overwrite: true);
+        var text = new StringWriter(CultureInfo.InvariantCulture);
+        write(text);
+        AtomicFile.WriteAllText(path, text.ToString(), keepBackup: false);
         return path;
     }
 }
