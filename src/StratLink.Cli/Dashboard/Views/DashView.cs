@@ -25,7 +25,7 @@ public abstract class DashView : View
         var vp = Viewport;
         if (y < 0 || y >= vp.Height || x >= vp.Width) return;
         SetAttribute(attribute);
-        int limit = Math.Min(vp.Width, x + Math.Max(0, maxWidth));
+        int limit = (int)Math.Min(vp.Width, (long)x + Math.Max(0, maxWidth));
         int col = x;
         foreach (Rune r in text.EnumerateRunes())
         {
