@@ -48,5 +48,6 @@ public static class CliApp
 
     private static IEnumerable<Command> Verbs(CliContext ctx) =>
     [
+        DemoCommand.Create(ctx),
     ];
 }
