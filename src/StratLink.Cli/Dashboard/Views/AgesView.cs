@@ -139,7 +139,8 @@ public sealed class AgesView : DashView
         }
     }
 
-    public static string ListHeader() => $"{"control",-12} {"kind",-11} {"where",-16} {"given",-18} {"95% range cal BP",-17} flags";
+    /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
+    public static string ListHeader() => $"{"use",-3} {"control",-11} {"kind",-11} {"where",-14} {"given",-17} {"95% cal BP",-15} flags";
 
     public string ListLine(AgeControlSpec a, ControlOutcome? outcome)
     {
@@ -161,10 +162,7 @@ public sealed class AgesView : DashView
         string range = outcome is null
             ? (_state.Results is null ? "not run yet" : "-")
             : $"{FormatNumber(outcome.AgeLoBP)}-{FormatNumber(outcome.AgeHiBP)}";
-        var flags = new List<string>();
-        if (a.Exclude) flags.Add("EXCLUDED");
-        if (!string.IsNullOrEmpty(outcome?.Flags)) flags.Add(outcome.Flags);
-        return $"{Cut(a.Id, 12),-12} {Cut(a.KindName, 11),-11} {Cut(where, 16),-16} {Cut(given, 18),-18} {Cut(range, 17),-17} {string.Join(", ", flags)}";
+        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 11),-11} {Cut(a.KindName, 11),-11} {Cut(where, 14),-14} {Cut(given, 17),-17} {Cut(range, 15),-15} {outcome?.Flags}";
     }
 
     private string FormatDepth(Quantities.CoreDepth? d) =>

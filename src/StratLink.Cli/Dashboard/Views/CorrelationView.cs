@@ -385,7 +385,8 @@ public sealed class CorrelationView : DashView
     {
         int rows = PlotRows;
         int row = RowOf(slot, slot.Cursor);
-        if (row < 0) slot.Top = slot.Cursor - Math.Min(2, rows - 1) * DepthPerRow;
+        // Scrolling up keeps two rows of context above the cursor, but never scrolls above the core top.
+        if (row < 0) slot.Top = Math.Max(Math.Min(CoreRange(slot.CoreId).Top, slot.Cursor), slot.Cursor - Math.Min(2, rows - 1) * DepthPerRow);
         else if (row >= rows) slot.Top = slot.Cursor - Math.Max(0, rows - 3) * DepthPerRow;
     }
 
