@@ -63,7 +63,8 @@ public sealed class CompositeView : DashView
         Put(0, 0, Fit($" Composite {signal.Name} (mean and 95% band) against {axisName}", vp.Width), pal.Header);
 
         int noteRows = Math.Min(4, Math.Max(1, composite.Analysis.Count + 1));
-        int rows = vp.Height - 2 - noteRows;
+        // Title row above; value range, splice legend and the analysis notes below.
+        int rows = vp.Height - 3 - noteRows;
         int plotLeft = Axis + Strip + 1;
         int cols = vp.Width - plotLeft - 2;
         if (rows < 2 || cols < 4) return true;
