@@ -1,7 +1,4 @@
-using StratLink.Checks;
 using StratLink.Cli.Dashboard.Results;
-using StratLink.ProjectIO;
-using StratLink.Tables;
 using StratLink.Workflows;
 
 namespace StratLink.Cli.Dashboard;
@@ -9,17 +6,7 @@ namespace StratLink.Cli.Dashboard;
 /// <summary>The dashboard's workflows backed by the StratLink library, as far as this build provides them.</summary>
 public sealed class LibraryWorkflows : IDashboardWorkflows
 {
-    public const string TablesNotRead = "dashboard.tables-not-read";
-
-    public LoadedProject Load(string projectPath, CancellationToken cancellation)
-    {
-        var document = ProjectReader.Load(projectPath);
-        var problems = new FindingList();
-        problems.AddRange(document.Problems);
-        problems.Add(Finding.Note(TablesNotRead, "the core tables are not read by this build, so the logs stay empty"));
-        var project = document.Project ?? new Model.Project();
-        return new LoadedProject(document, project, new Dictionary<string, CoreTable>(), problems);
-    }
+    public LoadedProject Load(string projectPath, CancellationToken cancellation) => ProjectLoader.Load(projectPath, cancellation);
 
     public string? RunUnavailable => "the alignment is not part of this build yet";
 

@@ -248,7 +248,7 @@ public sealed class CorrelationView : DashView
         var table = Table(slot.CoreId);
         if (table is not null && slot.Signal is not null && table.Signals.TryGetValue(slot.Signal, out var values))
         {
-            var (min, max) = ValueRange(slot.CoreId, slot.Signal, table.Depths, values);
+            var (min, max) = ValueRange(slot.CoreId, slot.Signal, values);
             canvas = new DotCanvas(width, rows);
             var bins = SignalBins.FromSorted(table.Depths, values, slot.Top, dpr / 4, rows * 4);
             CurvePlotter.DrawVertical(canvas, bins, min, max, y => core?.IsInGap(slot.Top + (y + 0.5) * dpr / 4) ?? false);
@@ -435,17 +435,18 @@ public sealed class CorrelationView : DashView
         return Math.Clamp(depth, top, bottom);
     }
 
-    private (double Min, double Max) ValueRange(string core, string signal, double[] depths, double[] values)
+    /// <summary>
+    /// The value scale of a log: the 0.5 to 99.5 percentiles of the signal, so a few event-layer
+    /// spikes do not squash the rest of the log (they are drawn clipped at the edge).
+    /// </summary>
+    private (double Min, double Max) ValueRange(string core, string signal, double[] values)
     {
         if (_ranges.TryGetValue((core, signal), out var r)) return r;
-        double min = double.PositiveInfinity, max = double.NegativeInfinity;
-        foreach (double v in values)
-        {
-            if (double.IsNaN(v)) continue;
-            if (v < min) min = v;
-            if (v > max) max = v;
-        }
-        if (double.IsInfinity(min)) (min, max) = (0, 1);
+        var finite = values.Where(v => !double.IsNaN(v) && !double.IsInfinity(v)).ToArray();
+        Array.Sort(finite);
+        double min = finite.Length == 0 ? 0 : Statistics.PercentileSorted(finite, 0.5);
+        double max = finite.Length == 0 ? 1 : Statistics.PercentileSorted(finite, 99.5);
+        if (!(max > min)) (min, max) = (min - 0.5, min + 0.5);
         return _ranges[(core, signal)] = (min, max);
     }
 
