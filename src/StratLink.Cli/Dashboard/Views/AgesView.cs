@@ -96,7 +96,7 @@ public sealed class AgesView : DashView
             double l = double.PositiveInfinity, h = double.NegativeInfinity;
             for (int k = 0; k < 4; k++) { l = Math.Min(l, lo[r * 4 + k]); h = Math.Max(h, hi[r * 4 + k]); }
             int c0 = Col(l), c1 = Col(h);
-            for (int c = c0; c <= c1; c++) Put(plotLeft + c, area.Y + 1 + r, Glyphs.Band, pal.Band);
+            Fill(plotLeft + c0, area.Y + 1 + r, c1 - c0 + 1, Glyphs.Band, pal.Band);
             if (r % 4 == 0) Put(area.X, area.Y + 1 + r, FormatNumber(top + r * 4 * dotDepth).PadLeft(6)[^6..], pal.Dim);
         }
         var canvas = new DotCanvas(cols, rows);
@@ -109,7 +109,7 @@ public sealed class AgesView : DashView
             int r = Math.Clamp((int)((d - top) / (dotDepth * 4)), 0, rows - 1);
             bool excluded = _state.Project.Ages.FirstOrDefault(a => a.Id == c.Id)?.Exclude ?? false;
             var attr = excluded ? pal.Dim : pal.Tie;
-            for (int col = Col(c.AgeLoBP); col <= Col(c.AgeHiBP); col++) Put(plotLeft + col, area.Y + 1 + r, Glyphs.ErrorBar, attr);
+            Fill(plotLeft + Col(c.AgeLoBP), area.Y + 1 + r, Col(c.AgeHiBP) - Col(c.AgeLoBP) + 1, Glyphs.ErrorBar, attr);
             Put(plotLeft + Col(c.AgeMedianBP), area.Y + 1 + r, Glyphs.ControlMark, attr);
         }
         string axisText = $"{FormatNumber(ageMin)} cal BP";

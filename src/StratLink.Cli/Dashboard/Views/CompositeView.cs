@@ -99,7 +99,7 @@ public sealed class CompositeView : DashView
                 if (!double.IsNaN(hi.Max[b])) h = Math.Max(h, hi.Max[b]);
             }
             if (!double.IsInfinity(l) && !double.IsInfinity(h))
-                for (int c = Col(l); c <= Col(h); c++) Put(plotLeft + c, 1 + r, Glyphs.Band, pal.Band);
+                Fill(plotLeft + Col(l), 1 + r, Col(h) - Col(l) + 1, Glyphs.Band, pal.Band);
             if (r % 4 == 0) Put(0, 1 + r, Number(top + r * 4 * dot).PadLeft(6)[^6..], pal.Dim);
 
             // Splice strip: the core the row's composite depth comes from.

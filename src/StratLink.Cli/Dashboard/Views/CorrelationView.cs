@@ -277,13 +277,12 @@ public sealed class CorrelationView : DashView
             Put(left + 5, 1 + cursorRow, Glyphs.Unicode ? "▶" : ">", active ? pal.Strong : pal.Dim);
             if (active)
             {
+                var row = new System.Text.StringBuilder();
                 for (int c = 0; c < width; c++)
-                {
-                    string glyph = canvas is not null && canvas.IsInked(c, cursorRow)
+                    row.Append(canvas is not null && canvas.IsInked(c, cursorRow)
                         ? canvas.CellRune(c, cursorRow, Glyphs.Unicode, Glyphs.CurveInk).ToString()
-                        : background[cursorRow]?.Glyph ?? " ";
-                    Put(plotLeft + c, 1 + cursorRow, glyph, pal.CursorRow);
-                }
+                        : background[cursorRow]?.Glyph ?? " ");
+                Put(plotLeft, 1 + cursorRow, row.ToString(), pal.CursorRow);
             }
         }
 

@@ -23,44 +23,79 @@ public abstract class DashView : View
     protected void Put(int x, int y, string text, Attribute attribute, int maxWidth = int.MaxValue)
     {
         var vp = Viewport;
-        if (y < 0 || y >= vp.Height || x >= vp.Width) return;
-        SetAttribute(attribute);
+        if (y < 0 || y >= vp.Height || x >= vp.Width || text.Length == 0) return;
         int limit = (int)Math.Min(vp.Width, (long)x + Math.Max(0, maxWidth));
-        int col = x;
-        foreach (Rune r in text.EnumerateRunes())
+        if (x < 0)
         {
-            if (col >= limit) break;
-            if (col >= 0) AddRune(col, y, r);
-            col++;
+            text = SkipRunes(text, -x);
+            x = 0;
         }
+        // One call per run of text: the toolkit's per-call cost (clipping, cell updates) dominates drawing.
+        if (text.Length > limit - x) text = TakeRunes(text, limit - x);
+        if (text.Length == 0) return;
+        SetAttribute(attribute);
+        AddStr(x, y, text);
     }
 
     protected void Fill(int x, int y, int width, string glyph, Attribute attribute)
     {
-        for (int i = 0; i < width; i++) Put(x + i, y, glyph, attribute);
+        if (width <= 0) return;
+        Put(x, y, string.Concat(Enumerable.Repeat(glyph, width)), attribute);
     }
 
     protected void ClearViewport(Attribute attribute)
     {
         var vp = Viewport;
-        for (int y = 0; y < vp.Height; y++) Fill(0, y, vp.Width, " ", attribute);
+        string blank = new(' ', vp.Width);
+        for (int y = 0; y < vp.Height; y++) Put(0, y, blank, attribute);
+    }
+
+    private static string TakeRunes(string text, int count)
+    {
+        if (count <= 0) return "";
+        int taken = 0, index = 0;
+        foreach (Rune r in text.EnumerateRunes())
+        {
+            if (taken == count) break;
+            index += r.Utf16SequenceLength;
+            taken++;
+        }
+        return text[..index];
+    }
+
+    private static string SkipRunes(string text, int count)
+    {
+        int skipped = 0, index = 0;
+        foreach (Rune r in text.EnumerateRunes())
+        {
+            if (skipped == count) break;
+            index += r.Utf16SequenceLength;
+            skipped++;
+        }
+        return text[index..];
     }
 
     /// <summary>Draws a dot canvas at (x, y), inked cells only, so shading drawn before stays where there is no curve.</summary>
     protected void PutCanvas(int x, int y, DotCanvas canvas, Attribute attribute)
     {
-        SetAttribute(attribute);
-        var vp = Viewport;
+        var run = new StringBuilder();
         for (int r = 0; r < canvas.Rows; r++)
         {
-            int yy = y + r;
-            if (yy < 0 || yy >= vp.Height) continue;
-            for (int c = 0; c < canvas.Columns; c++)
+            int start = -1;
+            for (int c = 0; c <= canvas.Columns; c++)
             {
-                if (!canvas.IsInked(c, r)) continue;
-                int xx = x + c;
-                if (xx < 0 || xx >= vp.Width) continue;
-                AddRune(xx, yy, canvas.CellRune(c, r, Glyphs.Unicode, Glyphs.CurveInk));
+                bool inked = c < canvas.Columns && canvas.IsInked(c, r);
+                if (inked)
+                {
+                    if (start < 0) start = c;
+                    run.Append(canvas.CellRune(c, r, Glyphs.Unicode, Glyphs.CurveInk).ToString());
+                }
+                else if (start >= 0)
+                {
+                    Put(x + start, y + r, run.ToString(), attribute);
+                    run.Clear();
+                    start = -1;
+                }
             }
         }
     }
