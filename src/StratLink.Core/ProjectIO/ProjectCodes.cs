@@ -20,4 +20,18 @@ public static class ProjectCodes
     public const string PathOutsideProject = "project.path-outside-project";
     public const string TableProblem = "table.invalid";
     public const string TableDepthOrder = "table.depth-order";
+    public const string TableNoHeader = "table.no-header";
+    public const string TableDuplicateColumn = "table.duplicate-column";
+    public const string TableMissingColumn = "table.missing-column";
+    public const string TableBadCell = "table.bad-cell";
+    public const string TableFieldCount = "table.field-count";
+    public const string TableMissingDepth = "table.missing-depth";
+    public const string TableUnknownSection = "table.unknown-section";
+    public const string TableNotNumeric = "table.not-numeric";
+    public const string TableLineTooLong = "table.line-too-long";
+    public const string TableIntervalInverted = "table.interval-inverted";
+    public const string TableIntervalOverlap = "table.interval-overlap";
+    public const string TableMixedDecimalMarks = "table.mixed-decimal-marks";
+    public const string TableSectionsIgnored = "table.sections-ignored";
+    public const string TableEmpty = "table.empty";
 }

@@ -1,0 +1,7 @@
+namespace StratLink.Cli;
+
+public static class Program
+{
+    public static int Main(string[] args) =>
+        CliApp.Run(args, Console.Out, Console.Error, stderrIsTerminal: !Console.IsErrorRedirected);
+}
