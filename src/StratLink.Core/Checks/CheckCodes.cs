@@ -6,9 +6,6 @@ public static class CheckCodes
     /// <summary>Error: marker X above marker Y in some cores and below it in others.</summary>
     public const string TieCrossing = "tie.crossing";
 
-    /// <summary>Error: a marker depth above the top or below the bottom of its core's table.</summary>
-    public const string TieOutsideCore = "tie.outside-core";
-
     /// <summary>Error: a marker depth inside a gap (nothing recovered there).</summary>
     public const string TieInGap = "tie.in-gap";
 

@@ -16,7 +16,7 @@ public static class ProjectChecks
     {
         var r = new CheckReporter(project);
         ctx.Progress?.Report(new WorkProgress("checks: ties", 0));
-        TieChecks.Run(r, project.Tables);
+        TieChecks.Run(r);
         ct.ThrowIfCancellationRequested();
 
         bool tied = project.Project.Markers.Any(m => m.Depths.Count(d => project.Tables.ContainsKey(d.CoreId)) >= 2);

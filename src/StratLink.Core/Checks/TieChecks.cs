@@ -1,23 +1,24 @@
 using StratLink.Model;
-using StratLink.Tables;
 
 namespace StratLink.Checks;
 
-/// <summary>Checks of the marker ties that need only the project and the core tables.</summary>
+/// <summary>Checks of the marker ties that need only the project.</summary>
 internal static class TieChecks
 {
-    public static void Run(CheckReporter r, IReadOnlyDictionary<string, CoreTable> tables)
+    public static void Run(CheckReporter r)
     {
-        var p = r.Project;
-        var known = p.Cores.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
-        Placement(r, tables);
+        var known = r.Project.Cores.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
+        Placement(r);
         Crossings(r, known);
         SameDepth(r);
         RateJumps(r);
     }
 
-    /// <summary>Marker depths outside the core (beyond the uncertainty), inside a gap or a disturbed interval (interiors only: a layer at a section break is fine).</summary>
-    private static void Placement(CheckReporter r, IReadOnlyDictionary<string, CoreTable> tables)
+    /// <summary>
+    /// Marker depths inside a gap or a disturbed interval (interiors only: a layer at a section break is
+    /// fine). Depths outside a core's samples are the project loader's finding (project.depth-outside-core).
+    /// </summary>
+    private static void Placement(CheckReporter r)
     {
         foreach (var m in r.Project.Markers)
         {
@@ -27,14 +28,6 @@ internal static class TieChecks
                 if (core is null) continue;
                 double d = md.Depth.In(r.Unit);
                 string src = CheckReporter.MarkerSource(m.Id, core.Id);
-                if (tables.TryGetValue(core.Id, out var t) && t.Count > 0)
-                {
-                    double top = t.Depths[0], bottom = t.Depths[^1];
-                    if (d < top - m.Uncertainty || d > bottom + m.Uncertainty)
-                        r.Add(Severity.Error, CheckCodes.TieOutsideCore,
-                            $"Marker {m.Id} is given at {r.Depth(d)} in core {core.Id}, but the core's samples span {r.Depth(top)} to {r.Depth(bottom)}; check the depth or the core.",
-                            core.Id, m.Id, d, src);
-                }
                 foreach (var g in core.Gaps.Where(g => Interior(g, d, r)))
                     r.Add(Severity.Error, CheckCodes.TieInGap,
                         $"Marker {m.Id} is given at {r.Depth(d)} in core {core.Id}, inside the gap {g} where nothing was recovered; check the depth.",

@@ -3,13 +3,14 @@ using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Model;
 using StratLink.Quantities;
+using StratLink.Tests.TestSupport;
 using static StratLink.Tests.Checks.CheckFixtures;
 
 namespace StratLink.Tests.Checks;
 
 public sealed class AgeChecksTests
 {
-    private static string IntCal20 => Path.Combine(RepositoryPaths.SharedData, "calibration-curves", "intcal20.14c");
+    private static string IntCal20 => Path.Combine(RepoPaths.SharedData, "calibration-curves", "intcal20.14c");
 
     [Fact]
     public void ReversedControlsInOneCoreAreAnError()

@@ -97,10 +97,10 @@ public sealed class AlignmentChecksTests
     public void FailingAlignerGivesANoteAndTheOtherChecksStillRun()
     {
         AlignmentResult Failing(LoadedProject lp, CancellationToken ct) => throw new InvalidOperationException("no signal in common");
-        var p = ThreeCores(0) with { Markers = [.. ThreeCores(0).Markers, Marker("bad", 0, ("A", 500), ("B", 10))] };
+        var p = ThreeCores(0) with { Markers = [.. ThreeCores(0).Markers, Marker("bad", 0, ("A", 30), ("B", 5))] };
         var findings = Run(LoadThree(p), new CheckContext { Aligner = Failing });
         Assert.Contains(findings, f => f.Code == CheckCodes.CheckNotRun && f.Severity == Severity.Note && f.Message.Contains("no signal in common"));
-        Assert.Contains(findings, f => f.Code == CheckCodes.TieOutsideCore);
+        Assert.Contains(findings, f => f.Code == CheckCodes.TieCrossing);
     }
 
     [Fact]

@@ -47,21 +47,6 @@ public sealed class TieChecksTests
     }
 
     [Fact]
-    public void MarkerOutsideItsCoreIsAnError()
-    {
-        var p = Project(["A", "B"], [Marker("X", 0.5, ("A", 10), ("B", 120))]);
-        var f = Assert.Single(Run(Load(p, Table("B", 0, 100))), f => f.Code == CheckCodes.TieOutsideCore);
-        Assert.Equal(("B", "X", 120.0, Severity.Error), (f.Core, f.Item, f.Depth, f.Severity));
-    }
-
-    [Fact]
-    public void MarkerJustBeyondTheLastSampleButWithinItsUncertaintyIsAccepted()
-    {
-        var p = Project(["A", "B"], [Marker("X", 0.5, ("A", 10), ("B", 100.4))]);
-        Assert.DoesNotContain(Run(Load(p)), f => f.Code == CheckCodes.TieOutsideCore);
-    }
-
-    [Fact]
     public void MarkerInAGapIsAnErrorAndInADisturbedIntervalAWarning()
     {
         var p = Project(["A", "B"], [Marker("X", 0, ("A", 42), ("B", 42)), Marker("Y", 0, ("A", 2), ("B", 3))]);

@@ -3,7 +3,7 @@ using System.Diagnostics;
 using StratLink.Model;
 using StratLink.ProjectIO;
 using StratLink.Quantities;
-using StratLink.Tests.Checks;
+using StratLink.Tests.TestSupport;
 using Xunit.Abstractions;
 
 namespace StratLink.Tests.ProjectIO;
@@ -28,7 +28,7 @@ public sealed class NoLostWorkTests(ITestOutputHelper output)
             ProjectWriter.Save(Version(markers: 2, name: "Version A"), a);
             ProjectWriter.Save(Version(markers: 400, name: "Version B"), b);
             string textA = File.ReadAllText(a), textB = File.ReadAllText(b);
-            string dll = RepositoryPaths.SaveStressDll;
+            string dll = SaveStressDll();
 
             var rng = new Random(20250611);
             int sawA = 0, sawB = 0;
@@ -68,6 +68,20 @@ public sealed class NoLostWorkTests(ITestOutputHelper output)
         {
             Directory.Delete(dir, recursive: true);
         }
+    }
+
+    /// <summary>
+    /// The built save-stress program: same configuration and framework folders as this test assembly,
+    /// under tests/StratLink.SaveStress (the test project builds it first without referencing it).
+    /// </summary>
+    private static string SaveStressDll()
+    {
+        string testDir = Path.TrimEndingDirectorySeparator(AppContext.BaseDirectory);
+        string framework = Path.GetFileName(testDir);
+        string configuration = Path.GetFileName(Path.GetDirectoryName(testDir)!);
+        string dll = Path.Combine(RepoPaths.Root, "tests", "StratLink.SaveStress", "bin", configuration, framework, "StratLink.SaveStress.dll");
+        if (!File.Exists(dll)) throw new FileNotFoundException($"The save-stress program is not built at {dll}.", dll);
+        return dll;
     }
 
     private static Project Version(int markers, string name)
