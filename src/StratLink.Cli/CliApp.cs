@@ -49,5 +49,6 @@ public static class CliApp
     private static IEnumerable<Command> Verbs(CliContext ctx) =>
     [
         DemoCommand.Create(ctx),
+        CalibrateCommand.Create(ctx),
     ];
 }

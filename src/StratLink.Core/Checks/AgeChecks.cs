@@ -12,17 +12,18 @@ namespace StratLink.Checks;
 /// </summary>
 internal static class AgeChecks
 {
-    public static void Run(CheckReporter r, LoadedProject loaded, AlignmentResult? alignment, CheckContext ctx)
+    public static void Run(CheckReporter r, LoadedProject loaded, AlignmentResult? alignment, CheckContext ctx, CancellationToken ct)
     {
-        var levels = DatedLevel.Collect(r.Project, ctx);
+        var radiocarbon = new RadiocarbonDates(loaded);
+        var levels = DatedLevel.Collect(r.Project, radiocarbon);
         ReversalsWithinCores(r, levels);
         if (alignment is not null)
         {
             ReversalsAcrossCores(r, levels, alignment);
             if (ctx.AgeScale is not null) OffModel(r, levels, alignment, ctx);
         }
-        CurveRanges(r, loaded, ctx);
-        Varves(r, levels, ctx);
+        Calibrations(r, radiocarbon);
+        Varves(r, levels, new VarveChronology(loaded, ct));
         MarkerControls(r, levels);
     }
 
@@ -81,50 +82,56 @@ internal static class AgeChecks
     }
 
     /// <summary>
-    /// A radiocarbon age (less its reservoir offset) outside the 14C span of its curve cannot be calibrated.
-    /// A curve file that does not exist is left to the project loader's missing-file error.
+    /// A radiocarbon age that cannot be calibrated on its curve (more than <see cref="AgeModelling.Calibration.Calibrator.OutsideCurveSigmas"/>
+    /// combined sigmas beyond every curve value, after the reservoir offset: modern or too old) is an
+    /// error; one whose calendar distribution is cut by an end of the curve, a warning. A curve file that
+    /// does not exist is left to the project loader's missing-file error.
     /// </summary>
-    private static void CurveRanges(CheckReporter r, LoadedProject loaded, CheckContext ctx)
+    private static void Calibrations(CheckReporter r, RadiocarbonDates radiocarbon)
     {
-        var read = ctx.CurveRange ?? CurveRangeReader.Read;
-        var cache = new Dictionary<string, RadiocarbonRange?>(StringComparer.Ordinal);
         foreach (var rc in r.Project.Ages.OfType<RadiocarbonAgeControl>().Where(a => !a.Exclude))
         {
-            string path = loaded.Document.Resolve(rc.Curve);
-            if (!File.Exists(path)) continue;
-            if (!cache.TryGetValue(path, out var range)) cache[path] = range = read(path);
+            var result = radiocarbon.Calibrate(rc, out string? problem);
             string src = CheckReporter.AgeSource(rc.Id);
-            if (range is not { } span)
+            double depth = rc.Depth.In(r.Unit);
+            if (result is null)
             {
-                r.Add(Severity.Warning, CheckCodes.CurveUnreadable,
-                    $"The calibration curve {rc.Curve} of {rc.Id} has no readable rows of calendar age and 14C age.", rc.Core, rc.Id, rc.Depth.In(r.Unit), src + ".curve");
+                if (problem is not null)
+                    r.Add(Severity.Warning, CheckCodes.CurveUnreadable, $"Radiocarbon age {rc.Id} could not be calibrated for the checks: {problem}", rc.Core, rc.Id, depth, src + ".curve");
                 continue;
             }
-            double value = rc.C14Age.Years - rc.ReservoirOffset;
-            if (span.Contains(value)) continue;
-            string corrected = rc.ReservoirOffset != 0 ? $" ({CheckReporter.Number(value, "0")} after the reservoir offset)" : "";
-            r.Add(Severity.Error, CheckCodes.RadiocarbonOutsideCurve,
-                $"Radiocarbon age {rc.Id}, {CheckReporter.Number(rc.C14Age.Years, "0")} ± {CheckReporter.Number(rc.C14Error, "0")} 14C yr BP{corrected}, lies outside its curve {rc.Curve}, which spans {CheckReporter.Number(span.Youngest, "0")} to {CheckReporter.Number(span.Oldest, "0")} 14C yr BP, so it cannot be calibrated. Check the value, or use a curve that covers it.",
-                rc.Core, rc.Id, rc.Depth.In(r.Unit), src);
+            string measured = $"Radiocarbon age {rc.Id}, {CheckReporter.Number(rc.C14Age.Years, "0")} ± {CheckReporter.Number(rc.C14Error, "0")} 14C yr BP"
+                + (rc.ReservoirOffset != 0 ? $" ({CheckReporter.Number(result.EffectiveC14Age, "0")} after the reservoir offset)" : "");
+            switch (result.Status)
+            {
+                case AgeModelling.Calibration.CalibrationStatus.Modern or AgeModelling.Calibration.CalibrationStatus.TooOld:
+                    r.Add(Severity.Error, CheckCodes.RadiocarbonOutsideCurve,
+                        $"{measured}, lies outside its curve {rc.Curve} ({result.Message}), so it has no calendar age there. Check the value, or use a curve that covers it.",
+                        rc.Core, rc.Id, depth, src);
+                    break;
+                case AgeModelling.Calibration.CalibrationStatus.Truncated:
+                    r.Add(Severity.Warning, CheckCodes.RadiocarbonAtCurveEnd,
+                        $"{measured}, reaches an end of its curve {rc.Curve} ({result.Message}); its calendar age is cut there.",
+                        rc.Core, rc.Id, depth, src);
+                    break;
+            }
         }
     }
 
     /// <summary>Each varve count against every independent calendar-scale age in its core within the counted interval.</summary>
-    private static void Varves(CheckReporter r, List<DatedLevel> levels, CheckContext ctx)
+    private static void Varves(CheckReporter r, List<DatedLevel> levels, VarveChronology varves)
     {
-        var counts = r.Project.Ages.OfType<VarveCountControl>().Where(v => !v.Exclude).ToList();
-        if (counts.Count == 0) return;
-        if (ctx.VarveAge is null)
+        foreach (var v in r.Project.Ages.OfType<VarveCountControl>().Where(v => !v.Exclude))
         {
-            r.Add(Severity.Note, CheckCodes.CheckNotRun, "The varve counts were not compared with the other ages: no varve chronology was given to the checks.",
-                null, counts[0].Id, null, CheckReporter.AgeSource(counts[0].Id));
-            return;
-        }
-        foreach (var v in counts)
-        {
+            if (varves.Problem(v) is { } problem)
+            {
+                r.Add(Severity.Note, CheckCodes.CheckNotRun, $"The varve count {v.Id} was not compared with the other ages: {problem}",
+                    v.Core, v.Id, null, CheckReporter.AgeSource(v.Id) + ".table");
+                continue;
+            }
             foreach (var l in levels.Where(l => l.Core == v.Core && l.IsCalendar && l.Control != v))
             {
-                if (ctx.VarveAge(v, CoreDepth.From(l.Depth, r.Unit)) is not { } counted) continue;
+                if (varves.AgeAt(v, l.Depth) is not { } counted) continue;
                 double limit = 2 * Math.Sqrt(counted.Sigma * counted.Sigma + l.Sigma * l.Sigma);
                 if (Math.Abs(counted.YearsBP - l.Age) <= limit) continue;
                 r.Add(Severity.Warning, CheckCodes.VarveDisagrees,

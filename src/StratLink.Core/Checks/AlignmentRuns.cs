@@ -30,13 +30,13 @@ internal static class AlignmentRuns
     }
 
     /// <summary>
-    /// The finest depth the alignment can resolve in a core: the larger of the composite step and the
-    /// core's median sample spacing. Used as the floor of a tie uncertainty, so an exact tie (uncertainty
-    /// 0) is not held to a precision no alignment has.
+    /// The finest depth the alignment can resolve in a core: the largest of the composite step, the
+    /// alignment grid step (when set) and the core's median sample spacing. Used as the floor of a tie
+    /// uncertainty, so an exact tie (uncertainty 0) is not held to a precision no alignment has.
     /// </summary>
     public static double GridStep(Project p, CoreTable? table)
     {
-        double step = p.Composite.Step;
+        double step = Math.Max(p.Composite.Step, p.Alignment.Step ?? 0);
         if (table is { Count: > 1 })
         {
             var spacing = new double[table.Count - 1];

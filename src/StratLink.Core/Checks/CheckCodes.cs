@@ -24,7 +24,7 @@ public static class CheckCodes
     /// <summary>Note or warning: worst mismatch of mapping A to C against A to B to C.</summary>
     public const string LoopClosure = "tie.loop-closure";
 
-    /// <summary>Note: a check that needs an alignment could not run (the aligner failed on the test project).</summary>
+    /// <summary>Note: a check could not run (no aligner given, the aligner failed on the edited project, a varve table unreadable).</summary>
     public const string CheckNotRun = "check.not-run";
 
     /// <summary>Error: two age controls of one core in reverse stratigraphic order beyond their errors.</summary>
@@ -33,10 +33,13 @@ public static class CheckCodes
     /// <summary>Warning: two age controls of different cores in reverse order on the composite depth scale.</summary>
     public const string AgeReversalAcrossCores = "age.reversal-across-cores";
 
-    /// <summary>Error: a radiocarbon age outside the 14C range of its calibration curve.</summary>
+    /// <summary>Error: a radiocarbon age outside its calibration curve (modern or too old for it).</summary>
     public const string RadiocarbonOutsideCurve = "age.c14-outside-curve";
 
-    /// <summary>Warning: the calibration curve of a radiocarbon age could not be read for the range check.</summary>
+    /// <summary>Warning: a radiocarbon age whose calendar distribution is cut by an end of its curve.</summary>
+    public const string RadiocarbonAtCurveEnd = "age.c14-at-curve-end";
+
+    /// <summary>Warning: the calibration curve of a radiocarbon age could not be read for the checks.</summary>
     public const string CurveUnreadable = "age.curve-unreadable";
 
     /// <summary>Warning: a varve-count age and an independent age disagree beyond both errors.</summary>

@@ -4,8 +4,8 @@ namespace StratLink.Checks;
 
 /// <summary>
 /// One age control placed at one depth of one core, with its age on a scale that can be compared:
-/// calendar years BP, or (for a radiocarbon age that cannot be calibrated here) reservoir-corrected
-/// 14C years against one curve, comparable only with ages on the same curve.
+/// calendar years BP, or (for a radiocarbon age whose curve cannot be read) reservoir-corrected 14C years
+/// against one curve, comparable only with ages on the same curve.
 /// </summary>
 internal sealed record DatedLevel(AgeControlSpec Control, string Core, double Depth, string Scale, double Age, double Sigma)
 {
@@ -22,7 +22,7 @@ internal sealed record DatedLevel(AgeControlSpec Control, string Core, double De
     /// Every dated level of the project, excluded controls left out. A calendar age on a marker gives a
     /// level in each core holding the marker; a varve count gives its anchor.
     /// </summary>
-    public static List<DatedLevel> Collect(Project p, CheckContext ctx)
+    public static List<DatedLevel> Collect(Project p, RadiocarbonDates radiocarbon)
     {
         var levels = new List<DatedLevel>();
         var unit = p.DepthUnit;
@@ -40,7 +40,7 @@ internal sealed record DatedLevel(AgeControlSpec Control, string Core, double De
                     levels.Add(new DatedLevel(c, core, depth.In(unit), CalendarScale, c.Age.YearsBP, c.Error));
                     break;
                 case RadiocarbonAgeControl rc when cores.Contains(rc.Core):
-                    if (ctx.Calibrate?.Invoke(rc) is { } cal)
+                    if (radiocarbon.Estimate(rc) is { } cal)
                         levels.Add(new DatedLevel(rc, rc.Core, rc.Depth.In(unit), CalendarScale, cal.YearsBP, cal.Sigma));
                     else
                         levels.Add(new DatedLevel(rc, rc.Core, rc.Depth.In(unit), RadiocarbonScale(rc),

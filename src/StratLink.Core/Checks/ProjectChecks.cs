@@ -32,7 +32,7 @@ public static class ProjectChecks
         }
 
         ctx.Progress?.Report(new WorkProgress("checks: ages", 0));
-        AgeChecks.Run(r, project, alignment, ctx);
+        AgeChecks.Run(r, project, alignment, ctx, ct);
         ctx.Progress?.Report(new WorkProgress("checks: ages", 1));
 
         return r.Findings

@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text;
 using StratLink.Checks;
 using StratLink.ProjectIO;
 using StratLink.Quantities;
@@ -7,35 +5,30 @@ using StratLink.Quantities;
 namespace StratLink.Export;
 
 /// <summary>
-/// Writes findings as checks.csv: columns severity, code, core, item, depth_&lt;unit&gt;, message;
-/// comma-separated, invariant culture, fields quoted where needed (RFC 4180).
+/// <c>checks.csv</c>: one row per finding with columns severity, code, core, item, depth_&lt;unit&gt;,
+/// message (the shared delimited-table rules: invariant numbers, RFC 4180 quoting).
 /// </summary>
 public static class ChecksCsvWriter
 {
-    public static string ToCsv(IEnumerable<Finding> findings, DepthUnit unit)
+    public static string FileName(TableFormat format = TableFormat.Csv) => "checks" + format.Extension();
+
+    public static void Write(TextWriter writer, IEnumerable<Finding> findings, DepthUnit unit, TableFormat format = TableFormat.Csv)
     {
-        var sb = new StringBuilder();
-        sb.Append("severity,code,core,item,depth_").Append(unit.Symbol()).Append(",message\n");
+        var table = new DelimitedTableWriter(writer, format);
+        table.Header(["severity", "code", "core", "item", $"depth_{unit.Symbol()}", "message"]);
         foreach (var f in findings)
         {
-            sb.Append(f.Severity.ToString().ToLowerInvariant()).Append(',')
-              .Append(Field(f.Code)).Append(',')
-              .Append(Field(f.Core)).Append(',')
-              .Append(Field(f.Item)).Append(',')
-              .Append(f.Depth is double d ? d.ToString("R", CultureInfo.InvariantCulture) : "").Append(',')
-              .Append(Field(f.Message)).Append('\n');
+            table.Text(f.Severity.ToString().ToLowerInvariant()).Text(f.Code).Text(f.Core).Text(f.Item)
+                .Number(f.Depth ?? double.NaN).Text(f.Message);
+            table.EndRow();
         }
-        return sb.ToString();
     }
 
-    /// <summary>Writes the file atomically (no backup: it is an output, rebuilt on every run).</summary>
-    public static void Write(string path, IEnumerable<Finding> findings, DepthUnit unit) =>
-        AtomicFile.WriteAllText(path, ToCsv(findings, unit), keepBackup: false);
-
-    private static string Field(string? text)
+    /// <summary>Writes <c>checks.csv</c> into <paramref name="directory"/> (atomically) and returns its path.</summary>
+    public static string WriteFile(string directory, IEnumerable<Finding> findings, DepthUnit unit, TableFormat format = TableFormat.Csv)
     {
-        if (string.IsNullOrEmpty(text)) return "";
-        if (text.IndexOfAny([',', '"', '\n', '\r']) < 0 && text.Trim() == text) return text;
-        return "\"" + text.Replace("\"", "\"\"") + "\"";
+        string path = Path.Combine(directory, FileName(format));
+        AtomicFile.Write(path, w => Write(w, findings, unit, format), keepBackup: false);
+        return path;
     }
 }

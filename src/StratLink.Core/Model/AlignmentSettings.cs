@@ -19,6 +19,43 @@ public sealed record AlignmentSettings
 
     /// <summary><c>dtw</c> (default) or <c>ties</c> (straight lines between marker ties).</summary>
     public string Method { get; init; } = AlignmentMethods.Dtw;
+
+    /// <summary>DTW step pattern: symmetric1, symmetric2 (default), asymmetric, symmetricP1, rabinerJuang4c, typeIIIc.</summary>
+    public string Pattern { get; init; } = "symmetric2";
+
+    /// <summary>Grid step of the resampled signals in the project unit; null = the reference core's median spacing.</summary>
+    public double? Step { get; init; }
+
+    /// <summary>Per-core standardisation: <c>zscore</c> (mean, SD) or <c>robust</c> (median, 1.4826 MAD).</summary>
+    public string Standardise { get; init; } = StandardiseMethods.ZScore;
+
+    /// <summary>Align the first-derivative form of the signals (derivative DTW, Keogh and Pazzani 2001).</summary>
+    public bool Derivative { get; init; }
+
+    /// <summary>Remove a least-squares linear trend in depth from each signal before standardising.</summary>
+    public bool Detrend { get; init; }
+
+    /// <summary>Cost per 45 degrees of change in step direction (accumulation-rate change); 0 = plain DTW.</summary>
+    public double RatePenalty { get; init; }
+
+    /// <summary>
+    /// A core's top may match anywhere in the reference (a lost top). Null = auto: open when the
+    /// core's marker ties place its top clearly below the reference's top.
+    /// </summary>
+    public bool? OpenBegin { get; init; }
+
+    /// <summary>A core's bottom may match anywhere in the reference. Null = auto, as for <see cref="OpenBegin"/>.</summary>
+    public bool? OpenEnd { get; init; }
+
+    /// <summary>Seed of the alignment ensemble; null = the age model's seed.</summary>
+    public int? Seed { get; init; }
+}
+
+public static class StandardiseMethods
+{
+    public const string ZScore = "zscore";
+    public const string Robust = "robust";
+    public static readonly IReadOnlyList<string> All = [ZScore, Robust];
 }
 
 public sealed record SignalWeight(string Signal, double Weight);

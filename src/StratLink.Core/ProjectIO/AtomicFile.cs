@@ -11,7 +11,11 @@ public static class AtomicFile
 {
     private static readonly UTF8Encoding Utf8NoBom = new(false);
 
-    public static void WriteAllText(string path, string text, bool keepBackup = true)
+    public static void WriteAllText(string path, string text, bool keepBackup = true) =>
+        Write(path, w => w.Write(text), keepBackup);
+
+    /// <summary>Streams the content through <paramref name="write"/> (large tables are never held as one string).</summary>
+    public static void Write(string path, Action<TextWriter> write, bool keepBackup = true)
     {
         string full = Path.GetFullPath(path);
         string dir = Path.GetDirectoryName(full) ?? ".";
@@ -20,10 +24,10 @@ public static class AtomicFile
         string tempBackup = temp + ".bak";
         try
         {
-            using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 64 * 1024, FileOptions.WriteThrough))
+            using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 64 * 1024))
             {
-                byte[] bytes = Utf8NoBom.GetBytes(text);
-                fs.Write(bytes);
+                using (var w = new StreamWriter(fs, Utf8NoBom, 64 * 1024, leaveOpen: true) { NewLine = "\n" })
+                    write(w);
                 fs.Flush(flushToDisk: true);
             }
             // Copy (not move) the old file to the backup, so the target is never absent; the copy goes

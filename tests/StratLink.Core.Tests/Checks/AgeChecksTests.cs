@@ -51,10 +51,11 @@ public sealed class AgeChecksTests
     [Fact]
     public void CalibratedRadiocarbonAgesCompareWithCalendarAges()
     {
-        var p = Project(["A"], ages: [Radiocarbon("r1", "A", 10, 3000, 30, "curves/lake.14c"), Calendar("ash", "A", 20, 1500, 10)]);
-        var ctx = new CheckContext { Calibrate = rc => new AgeEstimate(3200, 40) };
-        Assert.Contains(Run(Load(p), ctx), f => f.Code == CheckCodes.AgeReversal && f.Item == "r1/ash");
-        Assert.DoesNotContain(Run(Load(p)), f => f.Code == CheckCodes.AgeReversal);
+        // 3000 +- 30 14C yr BP on IntCal20 is about 3200 cal BP, far older than the 1500 +- 10 cal BP ash below it.
+        var p = Project(["A"], ages: [Radiocarbon("r1", "A", 10, 3000, 30, IntCal20), Calendar("ash", "A", 20, 1500, 10)]);
+        Assert.Contains(Run(Load(p)), f => f.Code == CheckCodes.AgeReversal && f.Item == "r1/ash");
+        var ordered = Project(["A"], ages: [Radiocarbon("r1", "A", 10, 3000, 30, IntCal20), Calendar("ash", "A", 20, 3500, 10)]);
+        Assert.DoesNotContain(Run(Load(ordered)), f => f.Code == CheckCodes.AgeReversal);
     }
 
     [Fact]
@@ -94,7 +95,7 @@ public sealed class AgeChecksTests
     [Fact]
     public void RadiocarbonAgeOutsideItsCurveIsAnError()
     {
-        // IntCal20 (Reimer et al. 2020) spans 95 to about 50,100 14C yr BP: 60,000 is beyond it, and a
+        // IntCal20 (Reimer et al. 2020) spans 95 to about 50,100 14C yr BP: 60,000 +- 2000 is beyond it, and a
         // post-bomb age (negative 14C age) before it; 2450 lies inside.
         var p = Project(["A"], ages: [
             Radiocarbon("old", "A", 90, 60000, 2000, IntCal20),
@@ -109,62 +110,57 @@ public sealed class AgeChecksTests
     [Fact]
     public void ReservoirOffsetIsTakenOffBeforeTheRangeCheck()
     {
-        // 300 14C yr less a 250 yr offset is 50, younger than any IntCal20 age (the youngest is 95, at 49 cal BP).
-        var p = Project(["A"], ages: [Radiocarbon("r", "A", 5, 300, 20, IntCal20) with { ReservoirOffset = 250 }]);
+        // 300 14C yr less a 300 yr offset is 0, younger than any IntCal20 age (the youngest is 95, at 49 cal BP).
+        var p = Project(["A"], ages: [Radiocarbon("r", "A", 5, 300, 20, IntCal20) with { ReservoirOffset = 300 }]);
         Assert.Contains(Run(Load(p)), f => f.Code == CheckCodes.RadiocarbonOutsideCurve && f.Message.Contains("after the reservoir offset"));
         Assert.DoesNotContain(Run(Load(Project(["A"], ages: [Radiocarbon("r", "A", 5, 300, 20, IntCal20)]))), f => f.Code == CheckCodes.RadiocarbonOutsideCurve);
     }
 
     [Fact]
-    public void CurveRangeIsReadFromThePublishedCurve()
+    public void AgeAtTheEndOfTheCurveIsAWarning()
     {
-        var range = CurveRangeReader.Read(IntCal20);
-        Assert.NotNull(range);
-        // IntCal20 (Reimer et al. 2020) as distributed: the first row (55,000 cal BP) is 50,100 14C yr, the
-        // youngest 14C age is 95 (at 49 cal BP).
-        Assert.True(range.Value.Oldest >= 50100, $"oldest {range.Value.Oldest}");
-        Assert.Equal(95, range.Value.Youngest);
+        // 50,000 +- 1000 against IntCal20's oldest 50,100 14C yr (55,000 cal BP): the distribution is cut there.
+        var p = Project(["A"], ages: [Radiocarbon("r", "A", 5, 50000, 1000, IntCal20)]);
+        var f = Assert.Single(Run(Load(p)), f => f.Code == CheckCodes.RadiocarbonAtCurveEnd);
+        Assert.Equal(Severity.Warning, f.Severity);
     }
 
     [Fact]
     public void UnreadableCurveIsAWarning()
     {
-        string dir = Directory.CreateTempSubdirectory("stratlink-curve-").FullName;
-        try
-        {
-            string curve = Path.Combine(dir, "broken.14c");
-            File.WriteAllText(curve, "# only a header\nCAL BP, 14C age\n");
-            var p = Project(["A"], ages: [Radiocarbon("r", "A", 5, 3000, 20, curve)]);
-            Assert.Contains(Run(Load(p)), f => f.Code == CheckCodes.CurveUnreadable && f.Severity == Severity.Warning);
-        }
-        finally
-        {
-            Directory.Delete(dir, recursive: true);
-        }
+        string curve = WriteBesideProject("broken.14c", "# only a header\nCAL BP, 14C age\n");
+        var p = Project(["A"], ages: [Radiocarbon("r", "A", 5, 3000, 20, curve)]);
+        Assert.Contains(Run(Load(p)), f => f.Code == CheckCodes.CurveUnreadable && f.Severity == Severity.Warning);
     }
 
     [Fact]
     public void VarveCountDisagreeingWithAnIndependentAgeIsReported()
     {
+        // 800 varves of 1 mm from 0 to 80 cm, anchored at the top at -68 cal BP with a 2 % counting error:
+        // at 50 cm the count gives 432 cal BP, sigma = 0.02 x 500 = 10 yr (systematic error, common practice).
+        string table = WriteBesideProject("A-varves.csv", "depth_top,depth_bottom\n"
+            + string.Concat(Enumerable.Range(0, 800).Select(k => $"{k * 0.1:0.0},{(k + 1) * 0.1:0.0}\n")));
         var varves = new VarveCountControl
         {
-            Id = "count", Core = "A", Table = "cores/A-varves.csv", AnchorDepth = D(0), AnchorAge = CalendarAge.FromYearsBP(-68), CountError = 0.02,
+            Id = "count", Core = "A", Table = table, AnchorDepth = D(0), AnchorAge = CalendarAge.FromYearsBP(-68), CountError = 0.02,
         };
-        // Stand-in chronology: 10 varves per cm, 2 % systematic counting error (sigma = 0.02 n; common practice).
-        AgeEstimate? Chronology(VarveCountControl v, CoreDepth d)
-        {
-            double n = 10 * d.In(Unit);
-            return d.In(Unit) > 80 ? null : new AgeEstimate(v.AnchorAge.YearsBP + n, v.CountError * n);
-        }
-        var ctx = new CheckContext { VarveAge = Chronology };
-        // At 50 cm the count says 432 +- 10; an ash dated 600 +- 20 is 168 yr off (limit 2 x 22 = 45).
+        // An ash dated 600 +- 20 is 168 yr off (limit 2 x 22 = 45); one at 90 cm lies below the count.
         var p = Project(["A"], ages: [varves, Calendar("ash", "A", 50, 600, 20), Calendar("deep", "A", 90, 5000, 20)]);
-        var f = Assert.Single(Run(Load(p), ctx), f => f.Code == CheckCodes.VarveDisagrees);
+        var f = Assert.Single(Run(Load(p)), f => f.Code == CheckCodes.VarveDisagrees);
         Assert.Equal(("A", "count/ash", 50.0, Severity.Warning), (f.Core, f.Item, f.Depth, f.Severity));
+        Assert.Contains("432 ± 10 cal BP", f.Message);
 
         var agreeing = Project(["A"], ages: [varves, Calendar("ash", "A", 50, 440, 20)]);
-        Assert.DoesNotContain(Run(Load(agreeing), ctx), f => f.Code == CheckCodes.VarveDisagrees);
-        Assert.Contains(Run(Load(agreeing)), f => f.Code == CheckCodes.CheckNotRun);
+        Assert.DoesNotContain(Run(Load(agreeing)), f => f.Code == CheckCodes.VarveDisagrees);
+    }
+
+    [Fact]
+    public void UnreadableVarveTableIsNotedAsACheckNotRun()
+    {
+        string table = WriteBesideProject("bad-varves.csv", "depth_top,depth_bottom\n1,0.5\n");
+        var varves = new VarveCountControl { Id = "count", Core = "A", Table = table, AnchorDepth = D(0), AnchorAge = CalendarAge.FromYearsBP(-68) };
+        var f = Assert.Single(Run(Load(Project(["A"], ages: [varves, Calendar("ash", "A", 50, 600, 20)]))), f => f.Code == CheckCodes.CheckNotRun);
+        Assert.Equal(("count", Severity.Note), (f.Item, f.Severity));
     }
 
     [Fact]
@@ -194,6 +190,16 @@ public sealed class AgeChecksTests
         var alignment = new AlignmentResult("A", "test", new Dictionary<string, MappingEnsemble> { ["A"] = new(DepthMapping.Identity("A", Unit, 0, 100), []) });
         var f = Assert.Single(Run(Load(p), new CheckContext { AgeScale = new TenYearsPerCm() }, alignment), f => f.Code == CheckCodes.AgeOffModel);
         Assert.Equal(("odd", Severity.Warning), (f.Item, f.Severity));
+    }
+
+    /// <summary>Writes a file in the folder of the test project file and returns its absolute path.</summary>
+    private static string WriteBesideProject(string name, string text)
+    {
+        string dir = Path.GetDirectoryName(ProjectPath)!;
+        Directory.CreateDirectory(dir);
+        string path = Path.Combine(dir, Guid.NewGuid().ToString("N") + "-" + name);
+        File.WriteAllText(path, text);
+        return path;
     }
 
     /// <summary>A model of 10 yr per cm with a 95 % range of +-20 yr.</summary>

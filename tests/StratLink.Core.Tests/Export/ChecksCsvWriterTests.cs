@@ -15,7 +15,7 @@ public sealed class ChecksCsvWriterTests
             new Finding { Severity = Severity.Error, Code = "tie.crossing", Core = "GS-2", Item = "X/Y", Depth = 152.25, Message = "Marker X lies \"above\" Y, not below; check it.\nSecond line." },
             new Finding { Severity = Severity.Note, Code = "check.not-run", Message = "No aligner." },
         };
-        string csv = ChecksCsvWriter.ToCsv(findings, DepthUnit.Centimetre);
+        string csv = ToCsv(findings, DepthUnit.Centimetre);
         Assert.StartsWith("severity,code,core,item,depth_cm,message\n", csv);
 
         // CsvHelper (RFC 4180) reads back exactly what was written.
@@ -28,10 +28,17 @@ public sealed class ChecksCsvWriterTests
         Assert.Equal(["note", "check.not-run", "", "", "", "No aligner."], rows[1]);
     }
 
+    private static string ToCsv(IEnumerable<Finding> findings, DepthUnit unit)
+    {
+        using var w = new StringWriter();
+        ChecksCsvWriter.Write(w, findings, unit);
+        return w.ToString();
+    }
+
     [Fact]
     public void DepthColumnNamesTheProjectUnitAndNumbersRoundTrip()
     {
-        string csv = ChecksCsvWriter.ToCsv([new Finding { Severity = Severity.Warning, Code = "c", Depth = 0.1 + 0.2, Message = "m" }], DepthUnit.Metre);
+        string csv = ToCsv([new Finding { Severity = Severity.Warning, Code = "c", Depth = 0.1 + 0.2, Message = "m" }], DepthUnit.Metre);
         // "R" keeps every digit: 0.1 + 0.2 is 0.30000000000000004 in binary floating point.
         Assert.Equal("severity,code,core,item,depth_m,message\nwarning,c,,,0.30000000000000004,m\n", csv);
     }

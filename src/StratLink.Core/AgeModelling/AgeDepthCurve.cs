@@ -1,0 +1,71 @@
+using MathNet.Numerics.Interpolation;
+
+namespace StratLink.AgeModelling;
+
+/// <summary>
+/// One Monte Carlo member's age-depth curve on the composite depth scale: knots of strictly increasing
+/// composite depth with non-decreasing ages (cal BP), interpolated linearly or by PCHIP. Above the first and
+/// below the last knot it extrapolates with the rate of the nearest segment (the straight line through the
+/// two end knots).
+/// </summary>
+public sealed class AgeDepthCurve
+{
+    private readonly double[] _z;
+    private readonly double[] _age;
+    private readonly CubicSpline? _spline;
+
+    public AgeDepthCurve(double[] compositeDepths, double[] agesBP, AgeInterpolation interpolation)
+    {
+        if (compositeDepths.Length != agesBP.Length) throw new ArgumentException("Knot arrays differ in length.");
+        if (compositeDepths.Length < 2) throw new ArgumentException("An age-depth curve needs at least two knots at different depths.");
+        for (int i = 1; i < compositeDepths.Length; i++)
+        {
+            if (!(compositeDepths[i] > compositeDepths[i - 1])) throw new ArgumentException($"Knot depths must increase strictly (knot {i}).");
+            if (agesBP[i] < agesBP[i - 1]) throw new ArgumentException($"Ages must not decrease with depth (knot {i}).");
+        }
+        _z = compositeDepths;
+        _age = agesBP;
+        Interpolation = interpolation;
+        // Two knots: PCHIP is the straight line anyway.
+        if (interpolation == AgeInterpolation.MonotoneSpline && _z.Length > 2) _spline = CubicSpline.InterpolatePchipSorted(_z, _age);
+    }
+
+    public AgeInterpolation Interpolation { get; }
+    public IReadOnlyList<double> CompositeDepths => _z;
+    public IReadOnlyList<double> AgesBP => _age;
+    public double TopDepth => _z[0];
+    public double BottomDepth => _z[^1];
+
+    /// <summary>True when <paramref name="compositeDepth"/> lies above the first or below the last knot.</summary>
+    public bool IsExtrapolated(double compositeDepth) => compositeDepth < _z[0] || compositeDepth > _z[^1];
+
+    public double AgeAt(double compositeDepth) => AgeAt(compositeDepth, out _);
+
+    /// <summary>Age (cal BP) at a composite depth and the slope d(age)/d(depth) there, years per depth unit.</summary>
+    public double AgeAt(double compositeDepth, out double yearsPerUnit)
+    {
+        int n = _z.Length;
+        if (compositeDepth <= _z[0] || compositeDepth >= _z[n - 1] || _spline is null)
+        {
+            int i = Segment(compositeDepth);
+            yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
+            return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
+        }
+        yearsPerUnit = _spline.Differentiate(compositeDepth);
+        return _spline.Interpolate(compositeDepth);
+    }
+
+    private int Segment(double z)
+    {
+        int n = _z.Length;
+        if (z <= _z[0]) return 0;
+        if (z >= _z[n - 1]) return n - 2;
+        int lo = 0, hi = n - 1;
+        while (hi - lo > 1)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (_z[mid] <= z) lo = mid; else hi = mid;
+        }
+        return lo;
+    }
+}

@@ -1,0 +1,627 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using MathNet.Numerics.Statistics;
+using StratLink.AgeModelling.Calibration;
+using StratLink.Alignment;
+using StratLink.Checks;
+using StratLink.Model;
+using StratLink.Quantities;
+using StratLink.Workflows;
+
+namespace StratLink.AgeModelling;
+
+/// <summary>
+/// Monte Carlo age-depth modelling on the composite depth scale (Bennett 1994, The Holocene 4:337-348;
+/// Blaauw 2010, Quaternary Geochronology 5:512-518). In iteration i every core's depths go to composite
+/// depth through member i of its alignment ensemble, so correlation uncertainty enters the ages; every
+/// control's age is drawn from its full distribution (inverse CDF of the calibrated density; normal for
+/// calendar ages; anchor and systematic counting error for varves); and the ages are interpolated.
+/// <para>
+/// Stratigraphic order is kept by rejection: an iteration redraws all control ages until no age decreases
+/// with depth, up to <see cref="MaxOrderAttempts"/> times, each from the iteration's own random streams. When
+/// no ordered draw is found the last draw is put in order by weighted isotonic regression (pooling, weights
+/// 1/sigma^2) and the iteration is counted in <see cref="AgeModelResult.OrderForcedIterations"/> with a warning.
+/// </para>
+/// <para>
+/// Contradicted controls: in each iteration the first, unconstrained draw of each control is compared with
+/// the others in use. The share of iterations in which it is out of order with at least one of them is its
+/// <see cref="AgeControlSummary.ContradictionShare"/>; a control is flagged at <see cref="FlagShare"/> or more
+/// when its leave-one-out |z| is also at least <see cref="FlagZ"/>. Order alone
+/// cannot tell which of two conflicting controls is wrong, so both are flagged; the leave-one-out z-score
+/// (<see cref="AgeControlSummary.LeaveOneOutZ"/>: the control's draw against the age the other controls give at
+/// its depth by linear interpolation, mean over sd of the difference) says which one the rest disagree with more.
+/// Controls set <c>exclude: true</c> are summarised and measured the same way but not used.
+/// </para>
+/// </summary>
+public static class AgeModeller
+{
+    public const int MaxOrderAttempts = 100;
+    public const double FlagShare = 0.5;
+
+    /// <summary>
+    /// Flagging also needs the control to disagree with the others' interpolated age by this many standard
+    /// deviations: a precise age inside a densely counted varve run is "out of order" with some varve in most
+    /// unconstrained draws even when the two agree.
+    /// </summary>
+    public const double FlagZ = 2.0;
+
+    /// <summary>Samples per unit of parallel work when summarising ages.</summary>
+    private const int SampleBlock = 64;
+
+    /// <summary>
+    /// Runs the age model. <paramref name="varveLayers"/> maps a varve-count control's id to its varve tops and
+    /// bottoms (project unit, one entry a varve), loaded from the control's table by the caller.
+    /// </summary>
+    public static AgeModelResult Run(LoadedProject project, AlignmentResult alignment,
+        IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)> varveLayers,
+        IProgress<WorkProgress>? progress, CancellationToken ct)
+    {
+        var p = project.Project;
+        var unit = p.DepthUnit;
+        int seed = p.AgeModel.Seed;
+        int iterations = Math.Max(1, p.AgeModel.Iterations);
+        var interpolation = AgeInterpolations.Parse(p.AgeModel.Interpolation);
+        var findings = new FindingList();
+
+        // Prepare every control; keep the problem of those that cannot be used.
+        var specs = p.Ages;
+        var prepared = new PreparedControl?[specs.Count];
+        var problemOf = new string?[specs.Count];
+        for (int c = 0; c < specs.Count; c++)
+        {
+            var localProblems = new FindingList();
+            prepared[c] = Prepare(project, alignment, varveLayers, specs[c], localProblems, out problemOf[c]);
+            findings.AddRange(localProblems);
+        }
+        int[] active = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null && !specs[c].Exclude).ToArray();
+        int[] measured = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null).ToArray();
+        foreach (int c in Enumerable.Range(0, specs.Count).Where(c => specs[c].Exclude))
+            findings.Add(Finding.Note(AgeModelCodes.Excluded, $"age control {specs[c].Id} is excluded by the project file (exclude: true): listed, not used.") with { Item = specs[c].Id });
+
+        int distinctPoints = active.SelectMany(c => prepared[c]!.PointCores.Zip(prepared[c]!.PointDepths)).Distinct().Count();
+        if (distinctPoints < 2)
+        {
+            findings.Add(Finding.Error(AgeModelCodes.TooFewControls,
+                $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
+            var empty = Summaries(specs, prepared, problemOf, [], [], iterations, null);
+            return new AgeModelResult(seed, interpolation, unit, [], empty, new Dictionary<string, AgeSeries>(), null, 0, findings);
+        }
+
+        var draws = new IterationDraws(specs.Count, iterations);
+        var curves = new AgeDepthCurve[iterations];
+        int done = 0, forced = 0;
+        var options = new ParallelOptions { CancellationToken = ct };
+        Parallel.For(0, iterations, options, () => new IterationBuffers(prepared, active, measured), (i, _, buffers) =>
+        {
+            curves[i] = Iterate(i, seed, prepared, active, measured, alignment, interpolation, buffers, draws, ref forced);
+            int d = Interlocked.Increment(ref done);
+            if (progress is not null && (d % Math.Max(1, iterations / 100) == 0 || d == iterations))
+                progress.Report(new WorkProgress("age model: iterations", d / (double)iterations));
+            return buffers;
+        }, _ => { });
+
+        if (forced > 0)
+            findings.Add(Finding.Warning(AgeModelCodes.OrderForced,
+                $"in {forced} of {iterations} iterations no draw of the age controls was in stratigraphic order after {MaxOrderAttempts} tries; those ages were pooled into order. The controls contradict each other: see the flagged ones."));
+
+        var summaries = Summaries(specs, prepared, problemOf, active, measured, iterations, draws);
+        foreach (var s in summaries.Where(s => s.Flagged))
+            findings.Add(Finding.Warning(AgeModelCodes.Contradicted,
+                $"age control {s.Id} is out of stratigraphic order with another control in {Pct(s.ContradictionShare)} % of iterations (leave-one-out z {s.LeaveOneOutZ.ToString("0.0", CultureInfo.InvariantCulture)}){(s.Excluded ? " (excluded)" : "; check it, or set exclude: true")}.") with { Item = s.Id, Core = s.Cores.FirstOrDefault() });
+
+        // Ages of every core's samples, then of the composite grid.
+        var cores = new Dictionary<string, AgeSeries>();
+        double gridTop = double.PositiveInfinity, gridBottom = double.NegativeInfinity;
+        int coreIndex = 0;
+        foreach (var core in p.Cores)
+        {
+            ct.ThrowIfCancellationRequested();
+            coreIndex++;
+            if (!project.Tables.TryGetValue(core.Id, out var table) || table.Count == 0) continue;
+            if (!alignment.Mappings.TryGetValue(core.Id, out var ensemble))
+            {
+                findings.Add(Finding.Warning(AgeModelCodes.NoMapping, $"core {core.Id} has no depth mapping to the composite scale: no ages for its samples.") with { Core = core.Id });
+                continue;
+            }
+            var depths = table.Unit == unit ? table.Depths : table.Depths.Select(d => DepthUnits.Convert(d, table.Unit, unit)).ToArray();
+            var series = Summarise(core.Id, false, unit, depths, ensemble, curves, options);
+            cores[core.Id] = series;
+            NoteExtrapolation(series, findings);
+            gridTop = Math.Min(gridTop, ensemble.Median.ToCompositeValue(depths[0]));
+            gridBottom = Math.Max(gridBottom, ensemble.Median.ToCompositeValue(depths[^1]));
+            progress?.Report(new WorkProgress("age model: samples", coreIndex / (double)p.Cores.Count, core.Id));
+        }
+        if (double.IsInfinity(gridTop))
+        {
+            gridTop = Median(curves.Select(c => c.TopDepth));
+            gridBottom = Median(curves.Select(c => c.BottomDepth));
+        }
+        double step = p.Composite.Step > 0 ? p.Composite.Step : 1;
+        int first = (int)Math.Floor(gridTop / step), last = (int)Math.Ceiling(gridBottom / step);
+        var grid = Enumerable.Range(first, last - first + 1).Select(k => k * step).ToArray();
+        var composite = Summarise("composite", true, unit, grid, null, curves, options);
+
+        return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings);
+    }
+
+    private static PreparedControl? Prepare(LoadedProject project, AlignmentResult alignment,
+        IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)> varveLayers, AgeControlSpec spec, FindingList problems, out string? problem)
+    {
+        var unit = project.Project.DepthUnit;
+        problem = null;
+        string? Fail(string code, string text, string? core = null, Severity severity = Severity.Error)
+        {
+            problems.Add(new Finding { Severity = severity, Code = code, Message = $"age control {spec.Id}: {text}", Item = spec.Id, Core = core });
+            return text;
+        }
+        bool Mapped(string core) => alignment.Mappings.ContainsKey(core);
+
+        switch (spec)
+        {
+            case CalendarAgeControl c when c.Marker is not null:
+            {
+                var marker = project.Project.FindMarker(c.Marker);
+                if (marker is null) { problem = Fail(AgeModelCodes.UnknownMarker, $"marker {c.Marker} is not defined."); return null; }
+                var at = marker.Depths.Where(d => Mapped(d.CoreId)).ToArray();
+                if (at.Length == 0) { problem = Fail(AgeModelCodes.NoMapping, $"no core holding marker {c.Marker} has a depth mapping."); return null; }
+                return PreparedControl.Calendar(spec, at.Select(d => d.CoreId).ToArray(), at.Select(d => d.Depth.In(unit)).ToArray(), c.Age.YearsBP, c.Error);
+            }
+            case CalendarAgeControl c:
+                if (!Mapped(c.Core!)) { problem = Fail(AgeModelCodes.NoMapping, $"core {c.Core} has no depth mapping.", c.Core); return null; }
+                return PreparedControl.Calendar(spec, [c.Core!], [c.Depth!.Value.In(unit)], c.Age.YearsBP, c.Error);
+            case RadiocarbonAgeControl r:
+            {
+                if (!Mapped(r.Core)) { problem = Fail(AgeModelCodes.NoMapping, $"core {r.Core} has no depth mapping.", r.Core); return null; }
+                var curve = CalibrationCurveCache.Shared.Get(project.Document.Resolve(r.Curve), problems);
+                CalibrationCurve? atmospheric = null;
+                if (r.MarineFraction is not null && r.AtmosphericCurve is not null)
+                    atmospheric = CalibrationCurveCache.Shared.Get(project.Document.Resolve(r.AtmosphericCurve), problems);
+                if (curve is null || (r.MarineFraction is not null && atmospheric is null))
+                {
+                    problem = Fail(AgeModelCodes.Curve, "its calibration curve could not be read.", r.Core);
+                    return null;
+                }
+                var result = Calibrator.Calibrate(r.C14Age, r.C14Error, curve, r.ReservoirOffset, r.ReservoirError, r.MarineFraction, atmospheric);
+                if (!result.IsUsable)
+                {
+                    problem = Fail(AgeModelCodes.Calibration, result.Message + " Not used in the age model.", r.Core, Severity.Warning);
+                    return null;
+                }
+                if (result.Message is not null) Fail(AgeModelCodes.Calibration, result.Message, r.Core, Severity.Warning);
+                return PreparedControl.Radiocarbon(r, r.Depth.In(unit), result);
+            }
+            case VarveCountControl v:
+            {
+                if (!Mapped(v.Core)) { problem = Fail(AgeModelCodes.NoMapping, $"core {v.Core} has no depth mapping.", v.Core); return null; }
+                if (!varveLayers.TryGetValue(v.Id, out var layers))
+                {
+                    problem = Fail(AgeModelCodes.VarveTable, $"the varve table {v.Table} was not loaded.", v.Core);
+                    return null;
+                }
+                int before = problems.Count;
+                var sequence = VarveSequence.Build(v.Id, layers.Tops, layers.Bottoms, v.AnchorDepth.In(unit), problems);
+                if (sequence is null) { problem = problems.Count > before ? problems[^1].Message : "bad varve table"; return null; }
+                return PreparedControl.Varve(v, sequence);
+            }
+            default:
+                problem = Fail(AgeModelCodes.TooFewControls, $"unsupported kind {spec.KindName}.");
+                return null;
+        }
+    }
+
+    /// <summary>Per-thread scratch space for one iteration: points of every measured control and their draws.</summary>
+    private sealed class IterationBuffers
+    {
+        public IterationBuffers(PreparedControl?[] prepared, int[] active, int[] measured)
+        {
+            Offset = new int[prepared.Length + 1];
+            for (int c = 0; c < prepared.Length; c++) Offset[c + 1] = Offset[c] + (prepared[c]?.PointCount ?? 0);
+            int total = Offset[^1];
+            Depth = new double[total];
+            Age = new double[total];
+            FirstAge = new double[total];
+            SortedDepth = new double[total];
+            SortedAge = new double[total];
+            int activePoints = active.Sum(c => prepared[c]!.PointCount);
+            ActiveIndex = new int[activePoints];
+            ActiveControl = new int[activePoints];
+            ActiveWeight = new double[activePoints];
+            Order = new int[activePoints];
+            OrderKeys = new double[activePoints];
+            int k = 0;
+            foreach (int c in active)
+                for (int q = 0; q < prepared[c]!.PointCount; q++)
+                {
+                    ActiveIndex[k] = Offset[c] + q;
+                    ActiveControl[k] = c;
+                    ActiveWeight[k++] = prepared[c]!.Weights[q];
+                }
+            Rng = new Random[prepared.Length];
+        }
+
+        public int[] Offset { get; }
+        public double[] Depth { get; }
+        public double[] Age { get; }
+        public double[] FirstAge { get; }
+        public double[] SortedDepth { get; }
+        public double[] SortedAge { get; }
+        public int[] ActiveIndex { get; }
+        public int[] ActiveControl { get; }
+        public double[] ActiveWeight { get; }
+        public int[] Order { get; }
+        public double[] OrderKeys { get; }
+        public Random[] Rng { get; }
+    }
+
+    /// <summary>Per-iteration records written by index (so parallel runs give identical results).</summary>
+    private sealed class IterationDraws(int controls, int iterations)
+    {
+        public double[] ModelledAge { get; } = new double[controls * iterations];
+        public bool[] Contradicted { get; } = new bool[controls * iterations];
+        public double[] Discrepancy { get; } = new double[controls * iterations];
+        public double[] Top { get; } = new double[controls * iterations];
+        public double[] Bottom { get; } = new double[controls * iterations];
+    }
+
+    private static AgeDepthCurve Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, AlignmentResult alignment,
+        AgeInterpolation interpolation, IterationBuffers b, IterationDraws draws, ref int forced)
+    {
+        int nControls = prepared.Length;
+        foreach (int c in measured)
+        {
+            var pc = prepared[c]!;
+            b.Rng[c] = new Random(SeedStreams.Derive(seed, i, c));
+            var depths = b.Depth.AsSpan(b.Offset[c], pc.PointCount);
+            for (int q = 0; q < pc.PointCount; q++)
+                depths[q] = alignment.Mappings[pc.PointCores[q]].Member(i).ToCompositeValue(pc.PointDepths[q]);
+            if (pc.IsMarker && pc.PointCount > 1) PlaceMarker(pc, depths, alignment.ReferenceCore);
+            double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
+            foreach (double z in depths)
+            {
+                top = Math.Min(top, z);
+                bottom = Math.Max(bottom, z);
+            }
+            draws.Top[i * nControls + c] = top;
+            draws.Bottom[i * nControls + c] = bottom;
+            // Excluded controls draw once, for their contradiction measure only.
+            pc.Draw(b.Rng[c], b.FirstAge.AsSpan(b.Offset[c], pc.PointCount));
+        }
+
+        int n = b.ActiveIndex.Length;
+        var depth = new double[n];
+        var age = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            depth[k] = b.Depth[b.ActiveIndex[k]];
+            age[k] = b.FirstAge[b.ActiveIndex[k]];
+            b.Order[k] = k;
+            b.OrderKeys[k] = depth[k];
+        }
+        Array.Sort(b.OrderKeys, b.Order);
+        MeasureContradictions(i, prepared, active, measured, b, draws);
+
+        bool ordered = StratigraphicOrder.IsOrdered(b.Order, depth, age);
+        for (int attempt = 1; attempt < MaxOrderAttempts && !ordered; attempt++)
+        {
+            foreach (int c in active)
+            {
+                var pc = prepared[c]!;
+                pc.Draw(b.Rng[c], b.Age.AsSpan(b.Offset[c], pc.PointCount));
+            }
+            for (int k = 0; k < n; k++) age[k] = b.Age[b.ActiveIndex[k]];
+            ordered = StratigraphicOrder.IsOrdered(b.Order, depth, age);
+        }
+        if (!ordered)
+        {
+            StratigraphicOrder.Pool(b.Order, age, b.ActiveWeight);
+            Interlocked.Increment(ref forced);
+        }
+
+        // Modelled age of each active control at its first point.
+        int pos = 0;
+        foreach (int c in active)
+        {
+            draws.ModelledAge[i * nControls + c] = age[pos];
+            pos += prepared[c]!.PointCount;
+        }
+
+        return BuildCurve(b.Order, depth, age, interpolation, i);
+    }
+
+    /// <summary>
+    /// A marker is one layer, so its age sits at one composite depth per iteration: the reference core's depth
+    /// when the reference holds the marker, else the mean of the depths its cores map to. (Left at each core's
+    /// mapped depth, the correlation scatter would interleave one age with its neighbours' and no draw would be
+    /// in order.) Its spread over the iterations still reaches every core's samples through their mappings.
+    /// </summary>
+    private static void PlaceMarker(PreparedControl pc, Span<double> depths, string referenceCore)
+    {
+        int r = Array.IndexOf(pc.PointCores, referenceCore);
+        double z = r >= 0 ? depths[r] : Mean(depths);
+        depths.Fill(z);
+
+        static double Mean(Span<double> values)
+        {
+            double sum = 0;
+            foreach (double v in values) sum += v;
+            return sum / values.Length;
+        }
+    }
+
+    /// <summary>
+    /// From the first draws: which controls are out of order with at least one other control in use, and how far
+    /// each control's age lies from the age the other controls give at its first point (linear interpolation
+    /// between the nearest other points above and below, or extrapolation from the two nearest on one side).
+    /// </summary>
+    private static void MeasureContradictions(int i, PreparedControl?[] prepared, int[] active, int[] measured, IterationBuffers b, IterationDraws draws)
+    {
+        int nControls = prepared.Length;
+        foreach (int c in measured)
+        {
+            // Sort each control's points by depth (a marker's cores may come in any order; ages are equal then).
+            int o = b.Offset[c], len = prepared[c]!.PointCount;
+            Array.Copy(b.Depth, o, b.SortedDepth, o, len);
+            Array.Copy(b.FirstAge, o, b.SortedAge, o, len);
+            if (len > 1) Array.Sort(b.SortedDepth, b.SortedAge, o, len);
+        }
+        foreach (int c in measured)
+        {
+            bool conflict = false;
+            var zc = b.SortedDepth.AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            var ac = b.SortedAge.AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            foreach (int k in active)
+            {
+                if (k == c) continue;
+                var zk = b.SortedDepth.AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                var ak = b.SortedAge.AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                if (StratigraphicOrder.Conflict(zc, ac, zk, ak)) { conflict = true; break; }
+            }
+            draws.Contradicted[i * nControls + c] = conflict;
+            int first = b.Offset[c];
+            draws.Discrepancy[i * nControls + c] = b.FirstAge[first] - PredictFromOthers(c, b.Depth[first], b);
+        }
+    }
+
+    /// <summary>Age at <paramref name="z"/> from the first draws of the active points not of control <paramref name="c"/>; NaN with fewer than two.</summary>
+    private static double PredictFromOthers(int c, double z, IterationBuffers b)
+    {
+        // Nearest two other points above-or-at z and nearest two below-or-at z, in depth order.
+        int a1 = -1, a2 = -1, b1 = -1, b2 = -1;
+        foreach (int k in b.Order)
+        {
+            if (b.ActiveControl[k] == c) continue;
+            double zk = b.Depth[b.ActiveIndex[k]];
+            if (zk <= z) { a2 = a1; a1 = k; }
+            else if (b1 < 0) b1 = k;
+            else if (b2 < 0) { b2 = k; break; }
+        }
+        (int p, int q) = a1 >= 0 && b1 >= 0 ? (a1, b1) : a1 >= 0 ? (a2, a1) : (b1, b2);
+        if (p < 0 || q < 0) return double.NaN;
+        double zp = b.Depth[b.ActiveIndex[p]], zq = b.Depth[b.ActiveIndex[q]];
+        double yp = b.FirstAge[b.ActiveIndex[p]], yq = b.FirstAge[b.ActiveIndex[q]];
+        if (zp == z) return yp;
+        return zq == zp ? 0.5 * (yp + yq) : yp + (yq - yp) * (z - zp) / (zq - zp);
+    }
+
+    /// <summary>Knots from ordered points: points at one composite depth become one knot at their mean age.</summary>
+    private static AgeDepthCurve BuildCurve(int[] order, double[] depth, double[] age, AgeInterpolation interpolation, int iteration)
+    {
+        var zs = new List<double>(order.Length);
+        var ys = new List<double>(order.Length);
+        int k = 0;
+        while (k < order.Length)
+        {
+            double z = depth[order[k]], sum = 0;
+            int count = 0;
+            for (; k < order.Length && depth[order[k]] == z; k++, count++) sum += age[order[k]];
+            zs.Add(z);
+            ys.Add(sum / count);
+        }
+        if (zs.Count < 2)
+            throw new InvalidOperationException($"In iteration {iteration} every age control maps to one composite depth ({zs[0].ToString(CultureInfo.InvariantCulture)}): an age model needs controls at two depths at least.");
+        // Means of ordered groups are ordered; guard against the last bit of rounding.
+        for (int j = 1; j < ys.Count; j++) if (ys[j] < ys[j - 1]) ys[j] = ys[j - 1];
+        return new AgeDepthCurve([.. zs], [.. ys], interpolation);
+    }
+
+    private static ImmutableArray<AgeControlSummary> Summaries(ImmutableList<AgeControlSpec> specs, PreparedControl?[] prepared, string?[] problemOf,
+        int[] active, int[] measured, int iterations, IterationDraws? draws)
+    {
+        int nControls = specs.Count;
+        var list = ImmutableArray.CreateBuilder<AgeControlSummary>(nControls);
+        var column = new double[iterations];
+        for (int c = 0; c < nControls; c++)
+        {
+            var spec = specs[c];
+            var pc = prepared[c];
+            var summary = new AgeControlSummary
+            {
+                Id = spec.Id,
+                Kind = spec.KindName,
+                Cores = pc is not null ? [.. pc.PointCores.Distinct()] : CoresNamed(spec),
+                InputDensity = pc?.Density,
+                Calibration = pc?.Calibration,
+                Excluded = spec.Exclude,
+                Used = active.Contains(c),
+                Problem = problemOf[c],
+            };
+            if (measured.Contains(c) && draws is not null)
+            {
+                int hits = 0;
+                for (int i = 0; i < iterations; i++) if (draws.Contradicted[i * nControls + c]) hits++;
+                double share = hits / (double)iterations, z = StandardisedMean(draws.Discrepancy, c);
+                summary = summary with
+                {
+                    ContradictionShare = share,
+                    LeaveOneOutZ = z,
+                    Flagged = share >= FlagShare && Math.Abs(z) >= FlagZ,
+                    CompositeTop = MedianOfColumn(draws.Top, c),
+                    CompositeBottom = MedianOfColumn(draws.Bottom, c),
+                };
+            }
+            if (summary.Used && draws is not null)
+            {
+                for (int i = 0; i < iterations; i++) column[i] = draws.ModelledAge[i * nControls + c];
+                Array.Sort(column);
+                summary = summary with
+                {
+                    ModelledMedianBP = Statistics.PercentileSorted(column, 50),
+                    ModelledLoBP = Statistics.PercentileSorted(column, 2.5),
+                    ModelledHiBP = Statistics.PercentileSorted(column, 97.5),
+                };
+            }
+            list.Add(summary);
+        }
+        return list.MoveToImmutable();
+
+        // Mean over sd of a control's discrepancies; +-infinity when exact ages disagree, 0 when they agree exactly.
+        double StandardisedMean(double[] values, int c)
+        {
+            double sum = 0, sum2 = 0;
+            int n = 0;
+            for (int i = 0; i < iterations; i++)
+            {
+                double v = values[i * nControls + c];
+                if (double.IsNaN(v)) continue;
+                sum += v;
+                sum2 += v * v;
+                n++;
+            }
+            if (n < 2) return double.NaN;
+            double mean = sum / n, sd = Math.Sqrt(Math.Max(0, (sum2 - n * mean * mean) / (n - 1)));
+            if (sd <= 1e-9 * Math.Max(1, Math.Abs(mean))) return Math.Abs(mean) < 1e-9 ? 0 : Math.Sign(mean) * double.PositiveInfinity;
+            return mean / sd;
+        }
+
+        double MedianOfColumn(double[] values, int c)
+        {
+            for (int i = 0; i < iterations; i++) column[i] = values[i * nControls + c];
+            Array.Sort(column);
+            return Statistics.PercentileSorted(column, 50);
+        }
+    }
+
+    private static ImmutableArray<string> CoresNamed(AgeControlSpec spec) => spec switch
+    {
+        CalendarAgeControl { Core: { } core } => [core],
+        RadiocarbonAgeControl r => [r.Core],
+        VarveCountControl v => [v.Core],
+        _ => [],
+    };
+
+    /// <summary>
+    /// Median and 2.5/97.5 percentiles over the members of age and accumulation rate at each depth; for a core,
+    /// depth d goes through mapping member i before curve i reads its age (and the rate through both slopes).
+    /// </summary>
+    private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves, ParallelOptions options)
+    {
+        int n = depths.Length, members = curves.Length;
+
+        // Iterations cycle through the alignment members: map every sample through each distinct member once.
+        var memberOf = new int[members];
+        var distinct = new List<DepthMapping>();
+        if (ensemble is not null)
+        {
+            var index = new Dictionary<DepthMapping, int>(ReferenceEqualityComparer.Instance);
+            for (int i = 0; i < members; i++)
+            {
+                var mapping = ensemble.Member(i);
+                if (!index.TryGetValue(mapping, out int k))
+                {
+                    k = distinct.Count;
+                    index[mapping] = k;
+                    distinct.Add(mapping);
+                }
+                memberOf[i] = k;
+            }
+        }
+        var composite = new double[distinct.Count][];
+        var ratio = new double[distinct.Count][];
+        Parallel.For(0, distinct.Count, options, k =>
+        {
+            composite[k] = new double[n];
+            ratio[k] = new double[n];
+            for (int s = 0; s < n; s++)
+            {
+                composite[k][s] = distinct[k].ToCompositeValue(depths[s]);
+                ratio[k][s] = distinct[k].RateRatioAt(depths[s]);
+            }
+        });
+
+        var med = new double[n];
+        var lo = new double[n];
+        var hi = new double[n];
+        var rMed = new double[n];
+        var rLo = new double[n];
+        var rHi = new double[n];
+        var extrapolated = new bool[n];
+        int blocks = (n + SampleBlock - 1) / SampleBlock;
+        Parallel.For(0, blocks, options, () => (Ages: new double[SampleBlock * members], Times: new double[SampleBlock * members], Column: new double[members]), (blk, _, buf) =>
+        {
+            int from = blk * SampleBlock, len = Math.Min(SampleBlock, n - from);
+            var outside = new int[len];
+            for (int i = 0; i < members; i++)
+            {
+                var curve = curves[i];
+                double[]? zs = ensemble is null ? null : composite[memberOf[i]];
+                double[]? rs = ensemble is null ? null : ratio[memberOf[i]];
+                for (int s = 0; s < len; s++)
+                {
+                    double z = zs is null ? depths[from + s] : zs[from + s];
+                    buf.Ages[s * members + i] = curve.AgeAt(z, out double yearsPerUnit);
+                    buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
+                    if (curve.IsExtrapolated(z)) outside[s]++;
+                }
+            }
+            for (int s = 0; s < len; s++)
+            {
+                (med[from + s], lo[from + s], hi[from + s]) = Percentiles(buf.Ages, s * members, buf.Column);
+                // Percentiles of deposition time (yr per unit) inverted are the rate's, ends swapped.
+                var (tMed, tLo, tHi) = Percentiles(buf.Times, s * members, buf.Column);
+                rMed[from + s] = 1 / tMed;
+                rLo[from + s] = 1 / tHi;
+                rHi[from + s] = 1 / tLo;
+                extrapolated[from + s] = 2 * outside[s] > members;
+            }
+            return buf;
+        }, _ => { });
+        return new AgeSeries(id, isComposite, unit, depths, med, lo, hi, rMed, rLo, rHi, extrapolated);
+    }
+
+    /// <summary>Median, 2.5 and 97.5 percentiles (type 7, as <see cref="Statistics.PercentileSorted"/>) of one member column, by selection rather than a full sort.</summary>
+    private static (double Median, double Lo, double Hi) Percentiles(double[] values, int offset, double[] scratch)
+    {
+        Array.Copy(values, offset, scratch, 0, scratch.Length);
+        return (ArrayStatistics.QuantileCustomInplace(scratch, 0.5, QuantileDefinition.R7),
+                ArrayStatistics.QuantileCustomInplace(scratch, 0.025, QuantileDefinition.R7),
+                ArrayStatistics.QuantileCustomInplace(scratch, 0.975, QuantileDefinition.R7));
+    }
+
+    private static void NoteExtrapolation(AgeSeries series, FindingList findings)
+    {
+        int firstInside = Array.IndexOf(series.Extrapolated, false);
+        int lastInside = Array.LastIndexOf(series.Extrapolated, false);
+        if (firstInside < 0)
+        {
+            findings.Add(Finding.Note(AgeModelCodes.Extrapolated,
+                $"every sample of core {series.Id} lies outside the age controls: its ages are extrapolated with the rate of the nearest segment.") with { Core = series.Id });
+            return;
+        }
+        if (firstInside > 0)
+            findings.Add(Finding.Note(AgeModelCodes.Extrapolated,
+                $"{firstInside} sample(s) of core {series.Id} ({Depth(series.Depths[0], series.Unit)} to {Depth(series.Depths[firstInside - 1], series.Unit)}) lie above the shallowest age control: their ages are extrapolated with the rate of the top segment.") with { Core = series.Id, Depth = series.Depths[0] });
+        if (lastInside < series.Count - 1)
+            findings.Add(Finding.Note(AgeModelCodes.Extrapolated,
+                $"{series.Count - 1 - lastInside} sample(s) of core {series.Id} ({Depth(series.Depths[lastInside + 1], series.Unit)} to {Depth(series.Depths[^1], series.Unit)}) lie below the deepest age control: their ages are extrapolated with the rate of the bottom segment.") with { Core = series.Id, Depth = series.Depths[lastInside + 1] });
+    }
+
+    private static string Depth(double v, DepthUnit unit) => v.ToString("0.###", CultureInfo.InvariantCulture) + " " + unit.Symbol();
+    private static string Pct(double share) => (100 * share).ToString("0", CultureInfo.InvariantCulture);
+
+    private static double Median(IEnumerable<double> values)
+    {
+        var sorted = values.ToArray();
+        Array.Sort(sorted);
+        return Statistics.PercentileSorted(sorted, 50);
+    }
+}

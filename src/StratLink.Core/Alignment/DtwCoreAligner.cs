@@ -1,0 +1,378 @@
+using StratLink.Checks;
+using StratLink.Quantities;
+
+namespace StratLink.Alignment;
+
+/// <summary>
+/// Aligns one core to the reference by dynamic time warping on prepared signals (rows = core grid,
+/// columns = reference grid, same step), with marker ties as hard constraints and an ensemble of
+/// paths drawn from the path posterior.
+/// <para>
+/// Band: a Sakoe-Chiba band of half-width window x (longer core) cells, laid around the
+/// straight-line-ties mapping (piecewise linear through the ties, mean tie rate beyond them), so
+/// cores of different length and accumulation rate keep the likely path inside it.
+/// Ties: each tie pinches the band to a box of +/- its depth uncertainty; a tie known to the grid
+/// step (box of one cell) cuts the lattice into independent segments, solved in parallel.
+/// </para>
+/// <para>
+/// Ensemble temperature: with the local cost read as a negative log-likelihood, P(path) ~ exp(-C / T).
+/// T is estimated from the optimal path's residuals (its local costs): T0 = distance / path cells is
+/// the maximum-likelihood scale if those costs were independent exponential variables (for one
+/// signal, |a - b| of Laplace-distributed misfits); neighbouring grid cells are not independent
+/// (signals are smooth and oversampled), so T0 is multiplied by the integrated autocorrelation time
+/// tau = 1 + 2 sum_k rho_k of the residual series (sum stopped at the first non-positive rho_k,
+/// Geyer's initial positive sequence), which counts each independent piece of evidence once.
+/// </para>
+/// </summary>
+public static class DtwCoreAligner
+{
+    public static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics) Align(
+        PreparedSignals core, PreparedSignals reference, double[] weights, IReadOnlyList<TiePoint> ties,
+        DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct = default)
+    {
+        if (core.Signals.Length != weights.Length || reference.Signals.Length != weights.Length)
+            throw new ArgumentException("Core, reference and weights must have the same signals.");
+        if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
+        int n = core.Count, m = reference.Count;
+        var cost = new SignalCost(core.Values, reference.Values, weights, 0);
+        var boxes = TieBoxes(core, reference, ties, findings);
+        options = ResolveOpenEnds(options, boxes, n, m, unit);
+        var centre = CentreLine(boxes, n, m, options, unit);
+        double neutral = NeutralCost(cost, centre, n, m);
+        cost = cost.WithNeutral(neutral);
+        // Unmatched reference at an open end costs what matching it typically would, per unit of
+        // pattern weight a reference column carries (none under N-normalised patterns).
+        double completion = options.Pattern.Normalisation == StepNormalisation.N ? 0 : neutral;
+        var band = BuildBand(centre, boxes, n, m, options);
+        var segments = Segments(boxes, n, m, options);
+
+        // Pass 1: optimal path per segment (independent given the exact ties).
+        var optimal = new DtwPath[segments.Count];
+        var directions = new byte[segments.Count][];
+        var slices = new Band[segments.Count];
+        var parallel = new ParallelOptions { CancellationToken = ct };
+        void SolveSegments(double completionCost) => Parallel.For(0, segments.Count, parallel, s =>
+        {
+            var g = segments[s];
+            slices[s] = band.Slice(g.R0, g.R1, g.C0, g.C1);
+            try
+            {
+                var (path, dirs) = DtwSolver.SolveKeepingDirections(cost.At(g.R0, g.C0), options.Pattern, slices[s], g.Options(options, completionCost), ct);
+                optimal[s] = path;
+                if (options.RatePenalty > 0) directions[s] = dirs;
+            }
+            catch (InvalidOperationException e)
+            {
+                throw new InvalidOperationException($"Core {core.CoreId}, depths {core.DepthAt(g.R0):0.###}-{core.DepthAt(g.R1):0.###}: {e.Message}", e);
+            }
+        });
+        SolveSegments(completion);
+        if (completion > 0 && (options.OpenBegin == true || options.OpenEnd == true))
+        {
+            // The neutral level (median cost along the straight-line-ties mapping) exceeds what a good
+            // match costs, so unmatched reference would look dear and the path would run along it;
+            // solve again with the cost per unit weight of the path just found.
+            double weight = 0;
+            for (int s = 0; s < segments.Count; s++)
+                weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
+            completion = Math.Min(completion, optimal.Sum(p => p.Distance) / weight);
+            SolveSegments(completion);
+        }
+
+        var (pathI, pathJ) = Join(optimal, segments);
+        double distance = optimal.Sum(p => p.Distance);
+        double meanCost = distance / pathI.Length;
+        double tau = AutocorrelationTime(cost, pathI, pathJ);
+        double temperature = Math.Max(meanCost * tau, 1e-12);
+        var forced = segments.Skip(1).Select(g => (g.R0, g.C0)).ToArray();
+        var optimalMapping = ToMapping(core, reference, cost, unit, pathI, pathJ, forced);
+        var diagnostics = new CoreAlignmentDiagnostics
+        {
+            CoreId = core.CoreId,
+            Method = "dtw",
+            Ties = boxes.Count,
+            Segments = segments.Count,
+            BandCells = slices.Sum(b => b.Cells),
+            Distance = distance,
+            MeanCost = meanCost,
+            AutocorrelationCells = tau,
+            Temperature = temperature,
+            Seed = options.Seed,
+            OpenBegin = options.OpenBegin == true,
+            OpenEnd = options.OpenEnd == true,
+            Optimal = optimalMapping,
+        };
+        if (options.Ensemble == 0) return (new MappingEnsemble(optimalMapping, []), diagnostics);
+
+        // Pass 2: the posterior per segment and its sampled pieces; member e joins piece e of every segment.
+        var pieces = new (int[] I, int[] J)[segments.Count][];
+        Parallel.For(0, segments.Count, parallel, s =>
+        {
+            var g = segments[s];
+            var o = g.Options(options, completion);
+            double endBias = o.OpenEnd ? completion / temperature : 0; // the completion cost of the columns left after the end
+            var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
+            var rng = new Random(Seeds.Derive(options.Seed, core.CoreId, s));
+            var drawn = new (int[] I, int[] J)[options.Ensemble];
+            for (int e = 0; e < drawn.Length; e++)
+            {
+                var (pi, pj) = sampler.Sample(rng);
+                for (int k = 0; k < pi.Length; k++) { pi[k] += g.R0; pj[k] += g.C0; }
+                drawn[e] = (pi, pj);
+            }
+            pieces[s] = drawn;
+        });
+        var members = new DepthMapping[options.Ensemble];
+        Parallel.For(0, members.Length, parallel, e =>
+        {
+            var (mi, mj) = Join(pieces.Select(p => p[e]).ToArray());
+            members[e] = ToMapping(core, reference, cost, unit, mi, mj, forced);
+        });
+        return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);
+    }
+
+    private readonly record struct TieBox(int I, int J, int K);
+
+    private readonly record struct Segment(int R0, int C0, int R1, int C1, bool OpenBegin, bool OpenEnd)
+    {
+        public DtwOptions Options(DtwCoreOptions o, double completion) =>
+            new() { OpenBegin = OpenBegin, OpenEnd = OpenEnd, StrictBand = true, RatePenalty = o.RatePenalty, CompletionCostPerColumn = completion };
+    }
+
+    private static List<TieBox> TieBoxes(PreparedSignals core, PreparedSignals reference, IReadOnlyList<TiePoint> ties, FindingList findings)
+    {
+        var boxes = new List<TieBox>();
+        foreach (var t in ties.OrderBy(t => t.CoreDepth))
+        {
+            int ti = core.RowNearest(t.CoreDepth), tj = reference.RowNearest(t.CompositeDepth);
+            int k = (int)Math.Round(t.Uncertainty / core.Step, MidpointRounding.AwayFromZero);
+            string? problem = null;
+            if (ti < 0 || ti >= core.Count || tj < 0 || tj >= reference.Count) problem = "lies outside the aligned records";
+            else if (boxes.Count > 0 && (ti - k <= boxes[^1].I + boxes[^1].K || tj - k <= boxes[^1].J + boxes[^1].K))
+                problem = "overlaps the previous tie within their uncertainties at this grid step";
+            if (problem is null) { boxes.Add(new TieBox(ti, tj, k)); continue; }
+            findings.Add(new Finding
+            {
+                Severity = Severity.Warning,
+                Code = "alignment.tie-unused",
+                Core = core.CoreId,
+                Item = t.Marker,
+                Depth = t.CoreDepth,
+                Message = $"marker {t.Marker} at {t.CoreDepth:0.###} (composite {t.CompositeDepth:0.###}) {problem}; the alignment does not use it",
+            });
+        }
+        return boxes;
+    }
+
+    /// <summary>
+    /// Auto open ends: a core whose ties place its top (bottom) more than 1% of the reference's
+    /// length inside the reference has lost that part (or is shorter); without ties, ends are closed.
+    /// </summary>
+    private static DtwCoreOptions ResolveOpenEnds(DtwCoreOptions o, List<TieBox> boxes, int n, int m, DepthUnit unit)
+    {
+        if (o.OpenBegin is not null && o.OpenEnd is not null) return o;
+        bool begin = false, end = false;
+        if (boxes.Count > 0)
+        {
+            var line = TieNetwork.StraightLines("grid", unit, boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList(), 0, n - 1);
+            double margin = Math.Max(2, 0.01 * m);
+            begin = line.ToCompositeValue(0) > margin;
+            end = line.ToCompositeValue(n - 1) < m - 1 - margin;
+        }
+        return o with { OpenBegin = o.OpenBegin ?? begin, OpenEnd = o.OpenEnd ?? end };
+    }
+
+    /// <summary>The straight-line-ties mapping in grid cells (row to column); the corners join it at closed ends.</summary>
+    private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit)
+    {
+        var knots = boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList();
+        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, 0, 0, ""));
+        if (o.OpenEnd != true || knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1, 0, ""));
+        knots = knots.DistinctBy(k => k.CoreDepth).ToList();
+        return TieNetwork.StraightLines("grid", unit, knots, 0, n - 1);
+    }
+
+    /// <summary>
+    /// Cost of a cell with nothing to compare: the median local cost along the straight-line-ties
+    /// mapping, a level typical of plausible matches, so a gap neither attracts nor repels the path.
+    /// </summary>
+    private static double NeutralCost(SignalCost cost, DepthMapping centre, int n, int m)
+    {
+        var values = new List<double>();
+        int stride = Math.Max(1, n / 2000);
+        for (int i = 0; i < n; i += stride)
+        {
+            int j = Math.Clamp((int)Math.Round(centre.ToCompositeValue(i)), 0, m - 1);
+            if (!cost.IsMissing(i, j)) values.Add(cost.Cost(i, j));
+        }
+        if (values.Count == 0) return 1;
+        values.Sort();
+        return Statistics.PercentileSorted(values.ToArray(), 50);
+    }
+
+    private static Band BuildBand(DepthMapping centre, List<TieBox> boxes, int n, int m, DtwCoreOptions o)
+    {
+        int w = Math.Max(1, (int)Math.Ceiling(o.Window * Math.Max(n, m)));
+        var lo = new int[n];
+        var hi = new int[n];
+        var pinned = new bool[n];
+        for (int i = 0; i < n; i++)
+        {
+            double c = centre.ToCompositeValue(i);
+            lo[i] = Math.Clamp((int)Math.Floor(c) - w, 0, m - 1);
+            hi[i] = Math.Clamp((int)Math.Ceiling(c) + w, 0, m - 1);
+        }
+        if (o.OpenBegin != true) lo[0] = 0;
+        if (o.OpenEnd != true) hi[n - 1] = m - 1;
+        foreach (var b in boxes)
+        {
+            int j0 = Math.Max(0, b.J - b.K), j1 = Math.Min(m - 1, b.J + b.K);
+            for (int i = Math.Max(0, b.I - b.K); i <= Math.Min(n - 1, b.I + b.K); i++)
+            {
+                lo[i] = Math.Max(lo[i], j0);
+                hi[i] = Math.Min(hi[i], j1);
+                if (lo[i] > hi[i]) { lo[i] = j0; hi[i] = j1; }
+                pinned[i] = true;
+            }
+        }
+        // Keep consecutive rows connected (a path moves at most one column between rows).
+        for (int i = 1; i < n; i++)
+        {
+            if (lo[i] > hi[i - 1] + 1)
+            {
+                if (!pinned[i - 1]) hi[i - 1] = lo[i] - 1;
+                else if (!pinned[i]) lo[i] = hi[i - 1] + 1;
+            }
+            if (hi[i] < lo[i - 1])
+            {
+                if (!pinned[i]) hi[i] = lo[i - 1];
+                else if (!pinned[i - 1]) lo[i - 1] = hi[i];
+            }
+        }
+        return new Band(m, lo, hi);
+    }
+
+    private static List<Segment> Segments(List<TieBox> boxes, int n, int m, DtwCoreOptions o)
+    {
+        var segs = new List<Segment>();
+        int r0 = 0, c0 = 0;
+        foreach (var b in boxes.Where(b => b.K == 0))
+        {
+            if (b.I == r0 && b.J == c0) continue;
+            segs.Add(new Segment(r0, c0, b.I, b.J, segs.Count == 0 && o.OpenBegin == true, false));
+            (r0, c0) = (b.I, b.J);
+        }
+        segs.Add(new Segment(r0, c0, n - 1, m - 1, segs.Count == 0 && o.OpenBegin == true, o.OpenEnd == true));
+        return segs;
+    }
+
+    private static (int[] I, int[] J) Join(DtwPath[] paths, List<Segment> segs) =>
+        Join(paths.Select((p, s) => (p.I.Select(i => i + segs[s].R0).ToArray(), p.J.Select(j => j + segs[s].C0).ToArray())).ToArray());
+
+    /// <summary>Segment paths end to end; the junction cell, shared by two segments, is kept once.</summary>
+    private static (int[] I, int[] J) Join((int[] I, int[] J)[] parts)
+    {
+        var ri = new List<int>();
+        var rj = new List<int>();
+        foreach (var (pi, pj) in parts)
+        {
+            int start = ri.Count > 0 && pi.Length > 0 && ri[^1] == pi[0] && rj[^1] == pj[0] ? 1 : 0;
+            for (int k = start; k < pi.Length; k++) { ri.Add(pi[k]); rj.Add(pj[k]); }
+        }
+        return ([.. ri], [.. rj]);
+    }
+
+    /// <summary>Integrated autocorrelation time of the local costs along a path (cells where both sides have data).</summary>
+    internal static double AutocorrelationTime(SignalCost cost, int[] pi, int[] pj)
+    {
+        var r = new List<double>(pi.Length);
+        for (int k = 0; k < pi.Length; k++)
+            if (!cost.IsMissing(pi[k], pj[k])) r.Add(cost.Cost(pi[k], pj[k]));
+        int n = r.Count;
+        if (n < 4) return 1;
+        double mean = r.Average();
+        double c0 = 0;
+        foreach (double v in r) c0 += (v - mean) * (v - mean);
+        if (!(c0 > 0)) return 1;
+        double tau = 1;
+        for (int lag = 1; lag < n / 2; lag++)
+        {
+            double c = 0;
+            for (int k = 0; k + lag < n; k++) c += (r[k] - mean) * (r[k + lag] - mean);
+            double rho = c / c0;
+            if (rho <= 0) break;
+            tau += 2 * rho;
+        }
+        return tau;
+    }
+
+    /// <summary>
+    /// A path as a depth mapping: each core row maps to the mean reference column it is matched
+    /// with. Rows with nothing compared on the path (gaps, disturbed intervals) give no knot, so
+    /// the mapping crosses them in a straight line; tie cells always give theirs.
+    /// </summary>
+    private static DepthMapping ToMapping(PreparedSignals core, PreparedSignals reference, SignalCost cost, DepthUnit unit, int[] pi, int[] pj, (int I, int J)[] forced)
+    {
+        int n = core.Count;
+        var sum = new double[n];
+        var cnt = new int[n];
+        for (int k = 0; k < pi.Length; k++)
+        {
+            if (cost.IsMissing(pi[k], pj[k])) continue;
+            sum[pi[k]] += pj[k];
+            cnt[pi[k]]++;
+        }
+        foreach (var (fi, fj) in forced) { sum[fi] = fj; cnt[fi] = 1; }
+        var x = new List<double>();
+        var y = new List<double>();
+        for (int i = 0; i < n; i++)
+        {
+            if (cnt[i] == 0) continue;
+            x.Add(core.DepthAt(i));
+            y.Add(reference.DepthAt(0) + sum[i] / cnt[i] * reference.Step);
+        }
+        if (x.Count < 2)
+        {
+            // Nothing compared anywhere: the path's end points are all there is.
+            x = [core.DepthAt(pi[0]), core.DepthAt(pi[^1])];
+            y = [reference.DepthAt(pj[0]), reference.DepthAt(pj[^1])];
+            if (x[1] <= x[0]) { x[1] = x[0] + core.Step; y[1] = y[0] + reference.Step; }
+        }
+        return Thin(core.CoreId, unit, x, y);
+    }
+
+    private static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members)
+    {
+        var x = new double[core.Count];
+        var y = new double[core.Count];
+        Parallel.For(0, (core.Count + 1023) / 1024, chunk =>
+        {
+            var v = new double[members.Length];
+            for (int i = chunk * 1024; i < Math.Min(core.Count, (chunk + 1) * 1024); i++)
+            {
+                double z = core.DepthAt(i);
+                for (int e = 0; e < v.Length; e++) v[e] = members[e].ToCompositeValue(z);
+                Array.Sort(v);
+                x[i] = z;
+                y[i] = Statistics.PercentileSorted(v, 50);
+            }
+        });
+        return Thin(core.CoreId, unit, [.. x], [.. y]);
+    }
+
+    /// <summary>Drops knots that lie on the line through their neighbours (long runs at one rate).</summary>
+    private static DepthMapping Thin(string coreId, DepthUnit unit, List<double> x, List<double> y)
+    {
+        var kx = new List<double> { x[0] };
+        var ky = new List<double> { y[0] };
+        for (int k = 1; k < x.Count - 1; k++)
+        {
+            double predicted = ky[^1] + (y[k + 1] - ky[^1]) * (x[k] - kx[^1]) / (x[k + 1] - kx[^1]);
+            if (Math.Abs(predicted - y[k]) <= 1e-9 * Math.Max(1, Math.Abs(y[k]))) continue;
+            kx.Add(x[k]);
+            ky.Add(y[k]);
+        }
+        if (x.Count > 1) { kx.Add(x[^1]); ky.Add(y[^1]); }
+        return new DepthMapping(coreId, unit, [.. kx], [.. ky]);
+    }
+}

@@ -1,0 +1,51 @@
+using StratLink.AgeModelling;
+using StratLink.ProjectIO;
+using StratLink.Quantities;
+
+namespace StratLink.Export;
+
+/// <summary>
+/// <c>ages-&lt;core&gt;.csv</c>: each sample's depth with its median age and 95 % range (2.5 and 97.5
+/// percentiles of the age-model ensemble), cal BP. One header row, rows ascending in depth.
+/// </summary>
+public static class AgesCsvWriter
+{
+    public static string FileName(string coreId, TableFormat format = TableFormat.Csv) => $"ages-{coreId}{format.Extension()}";
+
+    public static void Write(TextWriter writer, AgeSeries series, TableFormat format = TableFormat.Csv)
+    {
+        var table = new DelimitedTableWriter(writer, format);
+        table.Header([$"depth_{series.Unit.Symbol()}", "age_median_bp", "age_lo_bp", "age_hi_bp"]);
+        Rows(table, series, null);
+    }
+
+    /// <summary>Every core's ages in one table with a leading <c>core</c> column (the export command's single-table form).</summary>
+    public static void WriteAll(TextWriter writer, IEnumerable<AgeSeries> series, DepthUnit unit, TableFormat format = TableFormat.Csv)
+    {
+        var table = new DelimitedTableWriter(writer, format);
+        table.Header(["core", $"depth_{unit.Symbol()}", "age_median_bp", "age_lo_bp", "age_hi_bp"]);
+        foreach (var s in series) Rows(table, s, s.Id);
+    }
+
+    /// <summary>Writes <c>ages-&lt;core&gt;.csv</c> into <paramref name="directory"/> (atomically) and returns its path.</summary>
+    public static string WriteFile(string directory, AgeSeries series, TableFormat format = TableFormat.Csv)
+    {
+        string path = Path.Combine(directory, FileName(series.Id, format));
+        AtomicFile.Write(path, w => Write(w, series, format), keepBackup: false);
+        return path;
+    }
+
+    private static void Rows(DelimitedTableWriter table, AgeSeries series, string? core)
+    {
+        var order = Enumerable.Range(0, series.Count).OrderBy(i => series.Depths[i]).ToArray();
+        foreach (int i in order)
+        {
+            if (core is not null) table.Text(core);
+            table.Number(series.Depths[i]).Number(Age(series.AgeMedianBP[i])).Number(Age(series.AgeLoBP[i])).Number(Age(series.AgeHiBP[i]));
+            table.EndRow();
+        }
+    }
+
+    // Ages to 0.1 yr: finer digits would only show Monte Carlo noise.
+    private static double Age(double years) => Math.Round(years, 1);
+}

@@ -1,0 +1,76 @@
+using System.Globalization;
+using System.Text.Json;
+using StratLink.Cli;
+
+namespace StratLink.Tests.Commands;
+
+public class CalibrateCommandTests
+{
+    /// <summary>IntCal20 (Reimer et al. 2020) from ../shared/data beside the repository root; missing data fails loudly.</summary>
+    private static string IntCal20()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "StratLink.sln"))) dir = dir.Parent;
+        if (dir is null) throw new InvalidOperationException("StratLink.sln not found above the test assembly.");
+        string path = Path.GetFullPath(Path.Combine(dir.FullName, "..", "shared", "data", "calibration-curves", "intcal20.14c"));
+        if (!File.Exists(path)) throw new FileNotFoundException($"Shared open data missing: {path}", path);
+        return path;
+    }
+
+    private static (int Code, string Out, string Err) Run(params string[] args)
+    {
+        var stdout = new StringWriter();
+        var stderr = new StringWriter();
+        int code = CliApp.Run(args, stdout, stderr, stderrIsTerminal: false);
+        return (code, stdout.ToString(), stderr.ToString());
+    }
+
+    [Fact]
+    public void JsonAndCsvForScripts()
+    {
+        string csv = Path.Combine(Path.GetTempPath(), $"stratlink-cal-{Guid.NewGuid():N}.csv");
+        try
+        {
+            var (code, output, err) = Run("calibrate", "--c14", "5000", "--error", "35", "--curve", IntCal20(), "--csv", csv, "--json");
+            Assert.True(code == 0, err);
+            using var doc = JsonDocument.Parse(output);
+            double median = doc.RootElement.GetProperty("median_bp").GetDouble();
+            // 5000 14C yr BP lies near 5700-5900 cal BP on IntCal20 (from memory; wide bound).
+            Assert.InRange(median, 5600, 5900);
+            var rows = File.ReadAllLines(csv);
+            Assert.Equal("age_bp,probability", rows[0]);
+            // The density is a probability distribution: it sums to 1.
+            Assert.Equal(1.0, rows.Skip(1).Sum(r => double.Parse(r.Split(',')[1], CultureInfo.InvariantCulture)), 1e-9);
+        }
+        finally
+        {
+            File.Delete(csv);
+        }
+    }
+
+    [Fact]
+    public void TextReportWithReservoirOffset()
+    {
+        var (code, output, _) = Run("calibrate", "--c14", "2450", "--error", "30", "--curve", IntCal20(), "--delta-r", "100", "--delta-r-error", "40");
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Contains("Calibrated as     2350 +- 50 14C yr BP", output);
+        Assert.Contains("95.4 % range", output);
+        Assert.Contains("cal BP", output);
+    }
+
+    [Fact]
+    public void ModernDateExitsWithFindingAndMessage()
+    {
+        var (code, _, err) = Run("calibrate", "--c14", "-300", "--error", "30", "--curve", IntCal20());
+        Assert.Equal(ExitCodes.Findings, code);
+        Assert.Contains("modern", err);
+    }
+
+    [Fact]
+    public void MissingCurveIsAUsageError()
+    {
+        var (code, _, err) = Run("calibrate", "--c14", "1000", "--error", "30", "--curve", "/no/such/curve.14c");
+        Assert.Equal(ExitCodes.Usage, code);
+        Assert.Contains("not found", err);
+    }
+}

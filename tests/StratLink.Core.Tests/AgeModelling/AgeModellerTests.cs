@@ -1,0 +1,302 @@
+using StratLink.AgeModelling;
+using StratLink.AgeModelling.Calibration;
+using StratLink.Export;
+using StratLink.Model;
+using StratLink.Quantities;
+using StratLink.Workflows;
+using AlignmentResult = StratLink.Alignment.AlignmentResult;
+using static StratLink.Tests.AgeModelling.AgeModelFixture;
+
+namespace StratLink.Tests.AgeModelling;
+
+public class AgeModellerTests
+{
+    /// <summary>Invented truth for synthetic sites: 10 yr per cm of composite depth, -60 cal BP at the top (coring 2010 CE).</summary>
+    private static double Truth(double composite) => 10 * composite - 60;
+
+    private static AgeModelResult Run(LoadedProject project, AlignmentResult alignment,
+        IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)>? varves = null) =>
+        AgeModeller.Run(project, alignment, varves ?? NoVarves, null, CancellationToken.None);
+
+    /// <summary>Calendar controls in core R at the given depths, ages = truth + N(0, sigma) from a fixed seed.</summary>
+    private static List<AgeControlSpec> NoisyControls(double[] depths, double sigma, int seed)
+    {
+        var rng = new Random(seed);
+        return depths.Select((d, k) => (AgeControlSpec)Calendar($"c{k}", "R", d, Truth(d) + sigma * MathNet.Numerics.Distributions.Normal.InvCDF(0, 1, rng.NextDouble()), sigma)).ToList();
+    }
+
+    [Fact]
+    public void SyntheticSiteCoversTruthInEveryCore()
+    {
+        // Two cores: R is the reference; B maps by composite = 1.2 d + 3 with an alignment ensemble of +-10 cm.
+        // Five calendar controls in R with 30-yr errors. The 95 % ranges should hold the truth for at least 90 %
+        // of samples (nominal 95 %; bound allows for the one fixed noise draw of the controls).
+        var project = Project(NoisyControls([0, 50, 120, 200, 300], 30, seed: 3),
+            new Dictionary<string, double[]> { ["R"] = Range(0, 300, 1), ["B"] = Range(0, 245, 1) }, iterations: 1000);
+        var alignment = Aligned(Affine("R", 1, 0), AffineWithMembers("B", 1.2, 3, 10, 50));
+        var result = Run(project, alignment);
+        Assert.True(result.IsBuilt);
+        Assert.Equal(7, result.Seed);
+        foreach (var (core, toComposite) in new (string, Func<double, double>)[] { ("R", d => d), ("B", d => 1.2 * d + 3) })
+        {
+            var s = result.Cores[core];
+            int inside = 0;
+            double absErr = 0;
+            for (int i = 0; i < s.Count; i++)
+            {
+                double truth = Truth(toComposite(s.Depths[i]));
+                if (truth >= s.AgeLoBP[i] && truth <= s.AgeHiBP[i]) inside++;
+                absErr += Math.Abs(s.AgeMedianBP[i] - truth);
+            }
+            double share = inside / (double)s.Count;
+            Console.WriteLine($"core {core}: 95 % range holds truth for {share:P1}; mean |median - truth| {absErr / s.Count:0.0} yr");
+            Assert.True(share >= 0.9, $"core {core}: coverage {share:P1}");
+        }
+        // Correlation uncertainty widens B's ranges: members spread evenly over +-10 cm x 10 yr/cm = +-100 yr, whose
+        // 95 % range (190 yr) adds in quadrature to R's: about sqrt(90^2 + 190^2) = 210 yr; require R's + 60.
+        double widthR = result.Cores["R"].AgeHiBP[150] - result.Cores["R"].AgeLoBP[150];
+        int b = Array.IndexOf(result.Cores["B"].Depths, 122.0); // composite 149.4
+        double widthB = result.Cores["B"].AgeHiBP[b] - result.Cores["B"].AgeLoBP[b];
+        Assert.True(widthB > widthR + 60, $"width R {widthR:0}, B {widthB:0}");
+    }
+
+    [Fact]
+    public void AccumulationRateAndCompositeGrid()
+    {
+        // Exact controls on a 10 yr/cm line: the rate is 0.1 cm/yr in R, and 0.12 cm/yr in B whose depths
+        // are 1/1.2 of composite (d core / d age = (d composite / d age) / 1.2... inverted: 0.1 / 1.2 x 1.2^2).
+        var project = Project([Calendar("a", "R", 10, Truth(10), 0), Calendar("b", "R", 200, Truth(200), 0)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 250, 5), ["B"] = Range(0, 200, 5) }, iterations: 50, step: 2);
+        var result = Run(project, Aligned(Affine("R", 1, 0), Affine("B", 1.2, 3)));
+        Assert.All(result.Cores["R"].RateMedian, r => Assert.Equal(0.1, r, 1e-9));
+        Assert.All(result.Cores["B"].RateMedian, r => Assert.Equal(0.1 / 1.2, r, 1e-9));
+        var grid = result.Composite!;
+        Assert.True(grid.IsComposite);
+        Assert.Equal(0, grid.Depths[0], 1e-12);
+        Assert.Equal(2, grid.Depths[1] - grid.Depths[0], 1e-12);
+        Assert.Equal(250, grid.Depths[^1], 1e-12);
+        for (int i = 0; i < grid.Count; i++) Assert.Equal(Truth(grid.Depths[i]), grid.AgeMedianBP[i], 1e-6);
+        var (med, lo, hi) = result.AgeAt(CompositeDepth.From(100, Unit));
+        Assert.Equal(Truth(100), med, 1e-6);
+        Assert.Equal(Truth(100), lo, 1e-6);
+        Assert.Equal(Truth(100), hi, 1e-6);
+        Assert.Equal(Truth(100), result.MemberAgeAt(3, CompositeDepth.From(100, Unit)), 1e-6);
+    }
+
+    [Fact]
+    public void ExtrapolationIsFlaggedAndUsesEndSegmentRates()
+    {
+        // Linear extrapolation with the nearest segment's rate (methods section 3, common practice).
+        var project = Project([Calendar("a", "R", 50, 400, 0), Calendar("b", "R", 100, 900, 0), Calendar("c", "R", 150, 1200, 0)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 200, 10) }, iterations: 20);
+        var result = Run(project, Aligned(Affine("R", 1, 0)));
+        var s = result.Cores["R"];
+        Assert.Equal(-100, s.AgeMedianBP[0], 1e-9);     // 400 - 50 x 10 yr/cm (top segment)
+        Assert.Equal(1500, s.AgeMedianBP[^1], 1e-9);    // 1200 + 50 x 6 yr/cm (bottom segment)
+        Assert.Equal([true, true, true, true, true, false], s.Extrapolated[..6]);
+        Assert.True(s.Extrapolated[^1]);
+        Assert.False(s.Extrapolated[15]);
+        Assert.Contains(result.Findings, f => f.Code == AgeModelCodes.Extrapolated && f.Message.Contains("above the shallowest"));
+        Assert.Contains(result.Findings, f => f.Code == AgeModelCodes.Extrapolated && f.Message.Contains("below the deepest"));
+    }
+
+    [Fact]
+    public void ContradictedControlIsFlaggedAndCanBeExcluded()
+    {
+        // Five controls on the truth (+-20 yr) and one 1000 yr too old at 150 cm: it is out of order with the control
+        // at 200 cm in nearly every iteration. Order alone cannot say which of the two is wrong, so both are flagged;
+        // the leave-one-out z-score puts the reworked one further from the rest (about 1000 vs 550 yr off, on
+        // 20-30 yr errors). The three others are not flagged.
+        var good = NoisyControls([20, 80, 120, 200, 260], 20, seed: 11);
+        var bad = Calendar("reworked", "R", 150, Truth(150) + 1000, 20);
+        var depths = new Dictionary<string, double[]> { ["R"] = Range(0, 280, 2) };
+        var alignment = Aligned(Affine("R", 1, 0));
+
+        var withBad = Run(Project([.. good, bad], depths, iterations: 400), alignment);
+        var flagged = withBad.Controls.Single(c => c.Id == "reworked");
+        Assert.True(flagged.Flagged && flagged.Used);
+        Assert.True(flagged.ContradictionShare > 0.95, $"share {flagged.ContradictionShare}");
+        var partner = withBad.Controls.Single(c => c.Id == "c3");
+        Assert.True(partner.Flagged);
+        Assert.True(flagged.LeaveOneOutZ > 10 && partner.LeaveOneOutZ < -5, $"z reworked {flagged.LeaveOneOutZ:0.0}, c3 {partner.LeaveOneOutZ:0.0}");
+        Assert.True(Math.Abs(flagged.LeaveOneOutZ) > Math.Abs(partner.LeaveOneOutZ));
+        Assert.All(withBad.Controls.Where(c => c.Id is "c0" or "c1" or "c2" or "c4"), c => Assert.True(c.ContradictionShare < 0.2, $"{c.Id}: {c.ContradictionShare}"));
+        Assert.Contains(withBad.Findings, f => f.Code == AgeModelCodes.Contradicted && f.Item == "reworked");
+        Assert.True(withBad.OrderForcedIterations > 0);
+        Assert.Contains(withBad.Findings, f => f.Code == AgeModelCodes.OrderForced);
+
+        var excluded = Run(Project([.. good, bad with { Exclude = true }], depths, iterations: 400), alignment);
+        var listed = excluded.Controls.Single(c => c.Id == "reworked");
+        Assert.True(listed.Excluded);
+        Assert.False(listed.Used);
+        Assert.True(listed.Flagged, "an excluded control is still measured against the others");
+        Assert.Equal(0, excluded.OrderForcedIterations);
+        Assert.Contains(excluded.Findings, f => f.Code == AgeModelCodes.Excluded && f.Item == "reworked");
+        int i150 = Array.IndexOf(excluded.Cores["R"].Depths, 150.0);
+        Assert.InRange(excluded.Cores["R"].AgeMedianBP[i150], Truth(150) - 40, Truth(150) + 40);
+    }
+
+    [Fact]
+    public void SameSeedSameBitsDifferentSeedDifferentDraws()
+    {
+        var depths = new Dictionary<string, double[]> { ["R"] = Range(0, 300, 1), ["B"] = Range(0, 245, 1) };
+        var alignment = Aligned(Affine("R", 1, 0), AffineWithMembers("B", 1.2, 3, 2, 37));
+        var controls = NoisyControls([0, 50, 120, 200, 300], 30, seed: 3);
+        var a = Run(Project(controls, depths, iterations: 300, seed: 42), alignment);
+        var b = Run(Project(controls, depths, iterations: 300, seed: 42), alignment);
+        var c = Run(Project(controls, depths, iterations: 300, seed: 43), alignment);
+        foreach (string core in new[] { "R", "B" })
+        {
+            Assert.Equal(a.Cores[core].AgeMedianBP, b.Cores[core].AgeMedianBP);
+            Assert.Equal(a.Cores[core].AgeLoBP, b.Cores[core].AgeLoBP);
+            Assert.Equal(a.Cores[core].RateHi, b.Cores[core].RateHi);
+            Assert.NotEqual(a.Cores[core].AgeMedianBP, c.Cores[core].AgeMedianBP);
+        }
+        for (int m = 0; m < a.MemberCount; m++) Assert.Equal(a.Members[m].AgesBP, b.Members[m].AgesBP);
+    }
+
+    [Fact]
+    public void RadiocarbonDrawsFollowTheCalibratedDensity()
+    {
+        // One IntCal20 date on the Hallstatt plateau and an exact coring-year top far above: ordering never binds,
+        // so the modelled ages at the date follow its calibrated density (inverse-CDF draws, Blaauw 2010), not a
+        // normal. Monte Carlo bound for the 2.5/97.5 percentiles with 4000 draws: sqrt(0.025 x 0.975 / 4000) = 0.0025
+        // in probability, under 5 yr at the plateau's density; tolerance 15 yr.
+        var date = new RadiocarbonAgeControl
+        {
+            Id = "c14", Core = "R", Depth = D(200), C14Age = RadiocarbonAge.FromYearsBP(2450), C14Error = 30,
+            Curve = TestCurves.PathOf("intcal20.14c"),
+        };
+        var project = Project([Calendar("top", "R", 0, -60, 0), date], new Dictionary<string, double[]> { ["R"] = [100, 200] }, iterations: 4000);
+        var result = Run(project, Aligned(Affine("R", 1, 0)));
+        var density = Calibrator.Calibrate(RadiocarbonAge.FromYearsBP(2450), 30, TestCurves.IntCal20).Density!;
+        var s = result.Cores["R"];
+        Assert.Equal(density.InverseCdf(0.025), s.AgeLoBP[1], 15.0);
+        Assert.Equal(density.InverseCdf(0.975), s.AgeHiBP[1], 15.0);
+        Assert.Equal(density.Median, s.AgeMedianBP[1], 15.0);
+        var summary = result.Controls.Single(c => c.Id == "c14");
+        Assert.Equal("radiocarbon", summary.Kind);
+        Assert.Equal(density.Median, summary.InputMedianBP, 1e-9);
+        Assert.True(summary.InputHpd95.Length >= 1);
+        Assert.Equal(200, summary.CompositeTop, 1e-12);
+        Assert.Equal(density.Median, summary.ModelledMedianBP, 15.0);
+    }
+
+    [Fact]
+    public void UncalibratableDateIsListedNotDropped()
+    {
+        var modern = new RadiocarbonAgeControl
+        {
+            Id = "young", Core = "R", Depth = D(5), C14Age = RadiocarbonAge.FromYearsBP(-400), C14Error = 30,
+            Curve = TestCurves.PathOf("intcal20.14c"),
+        };
+        var project = Project([Calendar("a", "R", 0, -60, 1), modern, Calendar("b", "R", 100, 940, 20)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 100, 10) }, iterations: 50);
+        var result = Run(project, Aligned(Affine("R", 1, 0)));
+        Assert.True(result.IsBuilt);
+        var s = result.Controls.Single(c => c.Id == "young");
+        Assert.False(s.Used);
+        Assert.Contains("modern", s.Problem);
+        Assert.Contains(result.Findings, f => f.Code == AgeModelCodes.Calibration && f.Item == "young");
+    }
+
+    [Fact]
+    public void MarkerAgeAppliesInEveryCoreHoldingIt()
+    {
+        // ash-1 at 50 cm in R and 40 cm in B; B maps by composite = 1.25 d, so both points land at composite 50.
+        var marker = new MarkerSpec { Id = "ash-1", Kind = MarkerKind.Tephra, Depths = [new MarkerDepth("R", D(50)), new MarkerDepth("B", D(40))] };
+        var ash = new CalendarAgeControl { Id = "ash-1-age", Marker = "ash-1", Age = CalendarAge.FromYearsBP(440), Error = 10 };
+        var project = Project([Calendar("top", "B", 0, -60, 0), ash],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 60, 10), ["B"] = Range(0, 48, 8) }, iterations: 200, markers: [marker]);
+        var result = Run(project, Aligned(Affine("R", 1, 0), Affine("B", 1.25, 0)));
+        var s = result.Controls.Single(c => c.Id == "ash-1-age");
+        Assert.Equal(["R", "B"], s.Cores.ToArray());
+        Assert.Equal(50, s.CompositeTop, 1e-9);
+        Assert.Equal(50, s.CompositeBottom, 1e-9);
+        int r50 = Array.IndexOf(result.Cores["R"].Depths, 50.0);
+        int b40 = Array.IndexOf(result.Cores["B"].Depths, 40.0);
+        Assert.Equal(result.Cores["R"].AgeMedianBP[r50], result.Cores["B"].AgeMedianBP[b40], 1e-9);
+        Assert.Equal(440, result.Cores["B"].AgeMedianBP[b40], 2.0);
+    }
+
+    [Fact]
+    public void VarveCountingErrorGrowsLinearlyWithCount()
+    {
+        // 500 varves of 0.1 cm from 0 to 50 cm, anchored at 0 cm at -60 cal BP, 2 % counting error treated as
+        // systematic: sigma = e n (methods: varve counting errors, Zolitschka et al. 2015). At n = 500 the 95 %
+        // range half-width is 1.96 x 0.02 x 500 = 19.6 yr, at n = 250 half that: widths 39.2 and 19.6 yr.
+        // Monte Carlo bound for 2000 draws: percentiles within about 3 %: tolerance 10 %.
+        var tops = Enumerable.Range(0, 500).Select(k => k / 10.0).ToArray();
+        var bottoms = Enumerable.Range(1, 500).Select(k => k / 10.0).ToArray();
+        var varves = new VarveCountControl
+        {
+            Id = "v", Core = "R", Table = "R-varves.csv", AnchorDepth = D(0), AnchorAge = CalendarAge.FromYearsBP(-60), CountError = 0.02,
+        };
+        var project = Project([varves], new Dictionary<string, double[]> { ["R"] = [0, 25, 50] }, iterations: 2000);
+        var result = Run(project, Aligned(Affine("R", 1, 0)), new Dictionary<string, (double[], double[])> { ["v"] = (tops, bottoms) });
+        var s = result.Cores["R"];
+        Assert.Equal(-60, s.AgeMedianBP[0], 1e-9);
+        Assert.Equal(-60 + 250, s.AgeMedianBP[1], 1.5);
+        Assert.Equal(-60 + 500, s.AgeMedianBP[2], 3.0);
+        Assert.Equal(39.2, s.AgeHiBP[2] - s.AgeLoBP[2], 3.9);
+        Assert.Equal(19.6, s.AgeHiBP[1] - s.AgeLoBP[1], 2.0);
+    }
+
+    [Fact]
+    public void VarveTableProblemsNameTheVarve()
+    {
+        var varves = new VarveCountControl { Id = "v", Core = "R", Table = "t.csv", AnchorDepth = D(0), AnchorAge = CalendarAge.FromYearsBP(0) };
+        var project = Project([varves, Calendar("a", "R", 0, 0, 1), Calendar("b", "R", 10, 100, 1)], new Dictionary<string, double[]> { ["R"] = [0, 5, 10] }, iterations: 10);
+        var result = Run(project, Aligned(Affine("R", 1, 0)), new Dictionary<string, (double[], double[])> { ["v"] = ([0, 0.1, 0.15], [0.1, 0.2, 0.3]) });
+        var f = Assert.Single(result.Findings, f => f.Code == AgeModelCodes.VarveTable);
+        Assert.Contains("varve 3", f.Message);
+        Assert.False(result.Controls.Single(c => c.Id == "v").Used);
+    }
+
+    [Fact]
+    public void MonotoneSplineKeepsOrderAndLinearData()
+    {
+        // Fritsch and Carlson 1980: the PCHIP interpolant of monotone data stays monotone; linear data are reproduced (methods check).
+        var depths = new Dictionary<string, double[]> { ["R"] = Range(0, 300, 0.5) };
+        var linear = Run(Project([Calendar("a", "R", 0, Truth(0), 0), Calendar("b", "R", 100, Truth(100), 0), Calendar("c", "R", 300, Truth(300), 0)],
+            depths, iterations: 5, interpolation: "monotone-spline"), Aligned(Affine("R", 1, 0)));
+        Assert.All(linear.Cores["R"].Depths.Zip(linear.Cores["R"].AgeMedianBP), t => Assert.Equal(Truth(t.First), t.Second, 1e-9));
+
+        var wiggly = Run(Project(NoisyControls([0, 20, 30, 120, 130, 300], 40, seed: 5), depths, iterations: 100, interpolation: "monotone-spline"),
+            Aligned(Affine("R", 1, 0)));
+        Assert.Equal(AgeInterpolation.MonotoneSpline, wiggly.Interpolation);
+        foreach (var member in wiggly.Members)
+        {
+            double prev = double.NegativeInfinity;
+            for (double z = -10; z <= 310; z += 0.25)
+            {
+                double a = member.AgeAt(z);
+                Assert.True(a >= prev - 1e-9, $"age decreases at {z}");
+                prev = a;
+            }
+        }
+    }
+
+    [Fact]
+    public void TooFewControlsIsAnError()
+    {
+        var result = Run(Project([Calendar("a", "R", 10, 100, 5)], new Dictionary<string, double[]> { ["R"] = [0, 10] }, iterations: 10),
+            Aligned(Affine("R", 1, 0)));
+        Assert.False(result.IsBuilt);
+        Assert.True(result.Findings.HasErrors);
+        Assert.Contains(result.Findings, f => f.Code == AgeModelCodes.TooFewControls);
+        Assert.Single(result.Controls);
+        Assert.True(double.IsNaN(result.AgeAt(CompositeDepth.From(5, Unit)).MedianBP));
+    }
+
+    [Fact]
+    public void AgesCsvHasUnitsInvariantNumbersAndAscendingDepths()
+    {
+        var project = Project([Calendar("a", "R", 0, -60, 0), Calendar("b", "R", 100, 940, 0)], new Dictionary<string, double[]> { ["R"] = [0.5, 10.25, 99.5] }, iterations: 5);
+        var result = Run(project, Aligned(Affine("R", 1, 0)));
+        var sw = new StringWriter();
+        AgesCsvWriter.Write(sw, result.Cores["R"]);
+        Assert.Equal("depth_cm,age_median_bp,age_lo_bp,age_hi_bp\n0.5,-55.0,-55.0,-55.0\n10.25,42.5,42.5,42.5\n99.5,935.0,935.0,935.0\n", sw.ToString());
+        Assert.Equal("ages-R.csv", AgesCsvWriter.FileName("R"));
+    }
+}

@@ -1,0 +1,54 @@
+using StratLink.Alignment;
+using StratLink.Checks;
+using StratLink.Demo;
+using StratLink.Model;
+using StratLink.ProjectIO;
+using StratLink.Workflows;
+using Xunit.Abstractions;
+
+namespace StratLink.Tests.Alignment;
+
+/// <summary>
+/// Alignment of the invented demo site against its hidden truth (the generator's true composite depth
+/// of every sample): dtw must at least halve the straight-line-ties error, and the ensemble's 95%
+/// band must hold the true composite depth at >= 90% of samples (a 95% band with some model misfit).
+/// </summary>
+public class DemoSiteAlignmentTests(ITestOutputHelper output)
+{
+    [Fact]
+    public void Dtw_on_the_demo_site_beats_the_ties_baseline_and_its_band_holds_the_truth()
+    {
+        var site = DemoSiteGenerator.Generate(1);
+        var doc = new ProjectDocument(site.ProjectFileName, site.Project, new FindingList(), new SourceMap(site.ProjectFileName));
+        var loaded = new LoadedProject(doc, site.Project, site.Tables, new FindingList());
+        var dtw = CoreAligner.Align(loaded, null, default);
+        var ties = CoreAligner.Align(loaded.WithProject(site.Project with { Alignment = site.Project.Alignment with { Method = AlignmentMethods.Ties } }), null, default);
+
+        double sqDtw = 0, sqTies = 0;
+        int n = 0, inside = 0;
+        foreach (var (id, truth) in site.Truth)
+        {
+            if (id == site.ReferenceCoreId) continue;
+            double cDtw = 0, cTies = 0;
+            int cn = 0, cin = 0;
+            for (int k = 0; k < truth.Depths.Length; k++)
+            {
+                double z = truth.Depths[k], t = truth.CompositeDepths[k];
+                var e = dtw.Mappings[id];
+                double ed = e.Median.ToCompositeValue(z) - t, et = ties.Mappings[id].Median.ToCompositeValue(z) - t;
+                cDtw += ed * ed;
+                cTies += et * et;
+                var (lo, hi) = e.CompositeRange(z);
+                if (t >= lo && t <= hi) cin++;
+                cn++;
+            }
+            output.WriteLine($"{id}: RMS dtw {Math.Sqrt(cDtw / cn):0.00}, ties {Math.Sqrt(cTies / cn):0.00} {site.Project.DepthUnit}; band holds truth at {(double)cin / cn:P1} ({dtw.Diagnostics[id].Method}, T = {dtw.Diagnostics[id].Temperature:0.000}, {dtw.Diagnostics[id].Segments} segments, open {dtw.Diagnostics[id].OpenBegin}/{dtw.Diagnostics[id].OpenEnd})");
+            sqDtw += cDtw; sqTies += cTies; n += cn; inside += cin;
+        }
+        double rmsDtw = Math.Sqrt(sqDtw / n), rmsTies = Math.Sqrt(sqTies / n), coverage = (double)inside / n;
+        output.WriteLine($"all cores: RMS dtw {rmsDtw:0.00}, ties {rmsTies:0.00} (ratio {rmsDtw / rmsTies:0.00}); 95% band holds the truth at {coverage:P1} of {n} samples");
+        foreach (var f in dtw.Findings) output.WriteLine(f.ToString());
+        Assert.True(rmsDtw <= 0.5 * rmsTies, $"dtw RMS {rmsDtw:0.00} is not at most half the ties RMS {rmsTies:0.00}");
+        Assert.True(coverage >= 0.90, $"the 95% band holds the truth at {coverage:P1} of samples");
+    }
+}
