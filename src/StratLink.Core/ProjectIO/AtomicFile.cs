@@ -21,6 +21,7 @@ public static class AtomicFile
         string dir = Path.GetDirectoryName(full) ?? ".";
         Directory.CreateDirectory(dir);
         string temp = Path.Combine(dir, $".{Path.GetFileName(full)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
+        string tempBackup = temp + ".bak";
         try
         {
             using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 64 * 1024))
@@ -29,13 +30,19 @@ public static class AtomicFile
                     write(w);
                 fs.Flush(flushToDisk: true);
             }
-            // Copy (not move) the old file to the backup, so the target is never absent.
-            if (keepBackup && File.Exists(full)) File.Copy(full, full + ".bak", overwrite: true);
+            // Copy (not move) the old file to the backup, so the target is never absent; the copy goes
+            // to a temporary name first, so an interrupted copy cannot leave a half-written backup.
+            if (keepBackup && File.Exists(full))
+            {
+                File.Copy(full, tempBackup, overwrite: true);
+                File.Move(tempBackup, full + ".bak", overwrite: true);
+            }
             File.Move(temp, full, overwrite: true);
         }
         finally
         {
             if (File.Exists(temp)) File.Delete(temp);
+            if (File.Exists(tempBackup)) File.Delete(tempBackup);
         }
     }
 }

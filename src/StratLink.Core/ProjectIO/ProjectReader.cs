@@ -81,12 +81,14 @@ public static class ProjectReader
     {
         // A first pass over the events refuses aliases (the format has no use for them, and alias
         // bombs or recursive aliases would cost unbounded memory) and absurd nesting.
+        int lastLine = 1;
         try
         {
             var parser = new Parser(new StringReader(text));
             int depth = 0, documents = 0;
             while (parser.MoveNext())
             {
+                lastLine = (int)parser.Current!.End.Line;
                 switch (parser.Current)
                 {
                     case AnchorAlias a:
@@ -125,6 +127,13 @@ public static class ProjectReader
             string msg = e.InnerException?.Message ?? e.Message;
             int cut = msg.IndexOf("): ", StringComparison.Ordinal);
             ctx.Problems.AddError(ProjectCodes.Syntax, cut >= 0 ? msg[(cut + 3)..] : msg, ctx.File, (int)e.Start.Line);
+            return null;
+        }
+        catch (InvalidOperationException)
+        {
+            // The YAML library fails this way on some malformed input (a lone carriage return in a flow
+            // mapping, e.g. "a: {\rb: 1}" in YamlDotNet 18.1) instead of raising a YamlException.
+            ctx.Problems.AddError(ProjectCodes.Syntax, "the YAML cannot be read after this line (a stray control character or broken brackets?)", ctx.File, lastLine);
             return null;
         }
     }

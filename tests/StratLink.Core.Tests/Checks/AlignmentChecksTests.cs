@@ -1,0 +1,122 @@
+using StratLink.Alignment;
+using StratLink.Checks;
+using StratLink.Model;
+using StratLink.Workflows;
+using static StratLink.Tests.Checks.CheckFixtures;
+
+namespace StratLink.Tests.Checks;
+
+public sealed class AlignmentChecksTests
+{
+    // Hidden truth: A is the reference scale, B accumulates slower, C faster and offset.
+    private static readonly Dictionary<string, (double, double)> Truth = new()
+    {
+        ["A"] = (1.0, 0.0),
+        ["B"] = (0.8, 5.0),
+        ["C"] = (1.2, -3.0),
+    };
+
+    private static Project ThreeCores(double shiftOfM2InB, double uncertainty = 0.5)
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        MarkerSpec M(string id, double t, double shiftB = 0) =>
+            Marker(id, uncertainty, ("A", aligner.CoreDepthOf("A", t)), ("B", aligner.CoreDepthOf("B", t) + shiftB), ("C", aligner.CoreDepthOf("C", t)));
+        return Project(["A", "B", "C"], [M("m1", 20), M("m2", 50, shiftOfM2InB), M("m3", 75)]);
+    }
+
+    private static LoadedProject LoadThree(Project p) => Load(p, Table("A", 0, 100), Table("B", 0, 90), Table("C", 0, 120));
+
+    [Fact]
+    public void TieTheSignalsDisagreeWithIsReportedWithItsDistance()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        var lp = LoadThree(ThreeCores(shiftOfM2InB: 6));
+        var findings = Run(lp, new CheckContext { Aligner = aligner.Align });
+
+        var f = Assert.Single(findings, f => f.Code == CheckCodes.TieMisfit);
+        Assert.Equal(("B", "m2", Severity.Warning), (f.Core, f.Item, f.Severity));
+        Assert.Equal(aligner.CoreDepthOf("B", 50) + 6, f.Depth);
+        Assert.Contains("6 cm from the tie", f.Message);
+        // Leave-one-out: each marker was left out of one alignment, which asked for no ensemble.
+        var leftOut = aligner.Calls.Where(c => c.Markers.Count == 2).Select(c => "m1 m2 m3".Split(' ').Except(c.Markers.Select(m => m.Id)).Single());
+        Assert.Equal(["m1", "m2", "m3"], leftOut.Order());
+        Assert.All(aligner.Calls, c => Assert.Equal(0, c.Alignment.Ensemble));
+    }
+
+    [Fact]
+    public void ExactTieIsHeldToOneGridStepNotToZero()
+    {
+        // Uncertainty 0 and a 0.3 cm offset: within 3 x one grid step (1 cm sampling), so accepted;
+        // without the floor any offset at all would be reported.
+        var aligner = new LinearTruthAligner(Truth);
+        Assert.DoesNotContain(Run(LoadThree(ThreeCores(0.3, uncertainty: 0)), new CheckContext { Aligner = aligner.Align }),
+            f => f.Code == CheckCodes.TieMisfit);
+        // A 5 cm offset is beyond 3 grid steps.
+        Assert.Contains(Run(LoadThree(ThreeCores(5, uncertainty: 0)), new CheckContext { Aligner = aligner.Align }),
+            f => f.Code == CheckCodes.TieMisfit && f.Core == "B" && f.Item == "m2");
+    }
+
+    [Fact]
+    public void ConsistentAlignmentsCloseTheLoopAndSayHowWell()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        var f = Assert.Single(Run(LoadThree(ThreeCores(0)), new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(Severity.Note, f.Severity);
+        Assert.Contains("differs by 0 cm", f.Message);
+        // One alignment per reference core, each with that core as the reference.
+        Assert.Equal(["A", "B", "C"], aligner.Calls.Where(c => c.Markers.Count == 3).Select(c => c.Alignment.Reference).Order());
+    }
+
+    [Fact]
+    public void LoopThatDoesNotCloseIsAWarningThatSaysWhere()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        // With C as the reference, A's mapping bulges by up to 6 cm around A = 50 cm.
+        aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
+        var findings = Run(LoadThree(ThreeCores(0)), new CheckContext { Aligner = aligner.Align });
+        var f = Assert.Single(findings, f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(Severity.Warning, f.Severity);
+        Assert.Contains("differs by 6 cm", f.Message);
+        // Worst where the bulge peaks: A at 50 cm, or the B depth that maps there.
+        double expected = f.Core == "A" ? 50 : aligner.CoreDepthOf("B", 50);
+        Assert.Equal(expected, f.Depth!.Value, 1.0);
+    }
+
+    [Fact]
+    public void PassedAlignmentIsReusedForItsReferenceCore()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        var lp = LoadThree(ThreeCores(0));
+        var given = aligner.Align(lp, CancellationToken.None);
+        aligner.Calls.Clear();
+        Run(lp, new CheckContext { Aligner = aligner.Align }, given);
+        Assert.Equal(["B", "C"], aligner.Calls.Where(c => c.Markers.Count == 3).Select(c => c.Alignment.Reference!).Order());
+    }
+
+    [Fact]
+    public void FailingAlignerGivesANoteAndTheOtherChecksStillRun()
+    {
+        AlignmentResult Failing(LoadedProject lp, CancellationToken ct) => throw new InvalidOperationException("no signal in common");
+        var p = ThreeCores(0) with { Markers = [.. ThreeCores(0).Markers, Marker("bad", 0, ("A", 30), ("B", 5))] };
+        var findings = Run(LoadThree(p), new CheckContext { Aligner = Failing });
+        Assert.Contains(findings, f => f.Code == CheckCodes.CheckNotRun && f.Severity == Severity.Note && f.Message.Contains("no signal in common"));
+        Assert.Contains(findings, f => f.Code == CheckCodes.TieCrossing);
+    }
+
+    [Fact]
+    public void WithoutAnAlignerTheUserIsToldTheSignalChecksDidNotRun()
+    {
+        var f = Assert.Single(Run(LoadThree(ThreeCores(6))), f => f.Code == CheckCodes.CheckNotRun);
+        Assert.Equal(Severity.Note, f.Severity);
+    }
+
+    [Fact]
+    public void CancellationStopsTheRun()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        using var cts = new CancellationTokenSource();
+        cts.Cancel();
+        Assert.ThrowsAny<OperationCanceledException>(() =>
+            ProjectChecks.Run(LoadThree(ThreeCores(0)), null, new CheckContext { Aligner = aligner.Align }, cts.Token));
+    }
+}
