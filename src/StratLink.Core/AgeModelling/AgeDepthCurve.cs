@@ -74,6 +74,21 @@ public sealed class AgeDepthCurve
         return _spline.Interpolate(compositeDepth);
     }
 
+    /// <summary>
+    /// <see cref="AgeAt(double, out double)"/> for depths mostly visited in ascending order: <paramref name="segment"/>
+    /// (start at -1) carries the search on from the previous depth, so a walked curve's many knots cost little.
+    /// </summary>
+    internal double AgeAtAscending(double compositeDepth, ref int segment, out double yearsPerUnit)
+    {
+        if (_spline is not null) return AgeAt(compositeDepth, out yearsPerUnit);
+        int i = segment;
+        if (i < 0 || compositeDepth < _z[i]) i = Segment(compositeDepth);
+        else while (i < _z.Length - 2 && _z[i + 1] <= compositeDepth) i++;
+        segment = i;
+        yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
+        return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
+    }
+
     private int Segment(double z)
     {
         int n = _z.Length;

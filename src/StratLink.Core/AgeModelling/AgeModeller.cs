@@ -613,10 +613,11 @@ public static class AgeModeller
                 var curve = curves[i];
                 double[]? zs = ensemble is null ? null : composite[memberOf[i]];
                 double[]? rs = ensemble is null ? null : ratio[memberOf[i]];
+                int segment = -1;
                 for (int s = 0; s < len; s++)
                 {
                     double z = zs is null ? depths[from + s] : zs[from + s];
-                    buf.Ages[s * members + i] = curve.AgeAt(z, out double yearsPerUnit);
+                    buf.Ages[s * members + i] = curve.AgeAtAscending(z, ref segment, out double yearsPerUnit);
                     buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
                     if (curve.IsExtrapolated(z)) outside[s]++;
                 }
