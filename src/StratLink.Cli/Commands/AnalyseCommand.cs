@@ -66,7 +66,7 @@ internal static class AnalyseCommand
                     $"  {pc.PeriodYears:0.#} yr: nearest peak {pc.PeakPeriodYears:0.#} yr, power {pc.PowerOverLevel95:0.00} x the 95 % red-noise level{share}"));
             }
             ctx.Out.WriteLine($"Files in {dir}:");
-            foreach (string f in files) ctx.Out.WriteLine("  " + Path.GetRelativePath(dir, f));
+            foreach (string f in files) ctx.Out.WriteLine("  " + f);
             return ExitCodes.Success;
         });
         return cmd;
