@@ -48,7 +48,11 @@ public static class CliApp
 
     private static IEnumerable<Command> Verbs(CliContext ctx) =>
     [
-        DemoCommand.Create(ctx),
+        CheckCommand.Create(ctx),
+        BuildCommand.Create(ctx),
+        ExportCommand.Create(ctx),
+        AnalyseCommand.Create(ctx),
         CalibrateCommand.Create(ctx),
+        DemoCommand.Create(ctx),
     ];
 }

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using StratLink.Cli.Dashboard;
 
 namespace StratLink.Cli.Commands;
 
@@ -13,10 +14,6 @@ internal static class DashboardCommand
             Arity = ArgumentArity.ZeroOrOne,
         };
         root.Arguments.Add(project);
-        root.SetAction(parse =>
-        {
-            ctx.Fail("the dashboard is not part of this build yet; use the verbs (stratlink --help).");
-            return ExitCodes.Usage;
-        });
+        root.SetAction(parse => DashboardLauncher.Run(parse.GetValue(project)?.FullName, ctx));
     }
 }

@@ -6,7 +6,8 @@ namespace StratLink.AgeModelling;
 /// One Monte Carlo member's age-depth curve on the composite depth scale: knots of strictly increasing
 /// composite depth with non-decreasing ages (cal BP), interpolated linearly or by PCHIP. Above the first and
 /// below the last knot it extrapolates with the rate of the nearest segment (the straight line through the
-/// two end knots).
+/// two end knots). A curve made by <see cref="RateWalk"/> has knots at the walk's sub-steps, also beyond the
+/// controls; <see cref="TopDepth"/> and <see cref="BottomDepth"/> are always the shallowest and deepest control.
 /// </summary>
 public sealed class AgeDepthCurve
 {
@@ -15,6 +16,17 @@ public sealed class AgeDepthCurve
     private readonly CubicSpline? _spline;
 
     public AgeDepthCurve(double[] compositeDepths, double[] agesBP, AgeInterpolation interpolation)
+        : this(compositeDepths, agesBP, interpolation, double.NaN, double.NaN)
+    {
+    }
+
+    /// <summary>Knots joined by straight lines (the walk's sub-steps) for a model whose controls span <paramref name="controlTop"/> to <paramref name="controlBottom"/>.</summary>
+    internal AgeDepthCurve(double[] compositeDepths, double[] agesBP, double controlTop, double controlBottom, AgeInterpolation interpolation)
+        : this(compositeDepths, agesBP, interpolation, controlTop, controlBottom)
+    {
+    }
+
+    private AgeDepthCurve(double[] compositeDepths, double[] agesBP, AgeInterpolation interpolation, double controlTop, double controlBottom)
     {
         if (compositeDepths.Length != agesBP.Length) throw new ArgumentException("Knot arrays differ in length.");
         if (compositeDepths.Length < 2) throw new ArgumentException("An age-depth curve needs at least two knots at different depths.");
@@ -26,18 +38,25 @@ public sealed class AgeDepthCurve
         _z = compositeDepths;
         _age = agesBP;
         Interpolation = interpolation;
-        // Two knots: PCHIP is the straight line anyway.
-        if (interpolation == AgeInterpolation.MonotoneSpline && _z.Length > 2) _spline = CubicSpline.InterpolatePchipSorted(_z, _age);
+        bool walked = !double.IsNaN(controlTop);
+        TopDepth = walked ? controlTop : _z[0];
+        BottomDepth = walked ? controlBottom : _z[^1];
+        // Two knots: PCHIP is the straight line anyway. A walked curve's sub-steps are joined by straight lines.
+        if (!walked && interpolation == AgeInterpolation.MonotoneSpline && _z.Length > 2) _spline = CubicSpline.InterpolatePchipSorted(_z, _age);
     }
 
     public AgeInterpolation Interpolation { get; }
     public IReadOnlyList<double> CompositeDepths => _z;
     public IReadOnlyList<double> AgesBP => _age;
-    public double TopDepth => _z[0];
-    public double BottomDepth => _z[^1];
 
-    /// <summary>True when <paramref name="compositeDepth"/> lies above the first or below the last knot.</summary>
-    public bool IsExtrapolated(double compositeDepth) => compositeDepth < _z[0] || compositeDepth > _z[^1];
+    /// <summary>Composite depth of the shallowest control.</summary>
+    public double TopDepth { get; }
+
+    /// <summary>Composite depth of the deepest control.</summary>
+    public double BottomDepth { get; }
+
+    /// <summary>True when <paramref name="compositeDepth"/> lies above the shallowest or below the deepest control.</summary>
+    public bool IsExtrapolated(double compositeDepth) => compositeDepth < TopDepth || compositeDepth > BottomDepth;
 
     public double AgeAt(double compositeDepth) => AgeAt(compositeDepth, out _);
 
@@ -53,6 +72,21 @@ public sealed class AgeDepthCurve
         }
         yearsPerUnit = _spline.Differentiate(compositeDepth);
         return _spline.Interpolate(compositeDepth);
+    }
+
+    /// <summary>
+    /// <see cref="AgeAt(double, out double)"/> for depths mostly visited in ascending order: <paramref name="segment"/>
+    /// (start at -1) carries the search on from the previous depth, so a walked curve's many knots cost little.
+    /// </summary>
+    internal double AgeAtAscending(double compositeDepth, ref int segment, out double yearsPerUnit)
+    {
+        if (_spline is not null) return AgeAt(compositeDepth, out yearsPerUnit);
+        int i = segment;
+        if (i < 0 || compositeDepth < _z[i]) i = Segment(compositeDepth);
+        else while (i < _z.Length - 2 && _z[i + 1] <= compositeDepth) i++;
+        segment = i;
+        yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
+        return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
     }
 
     private int Segment(double z)

@@ -15,7 +15,9 @@ namespace StratLink.AgeModelling;
 /// Blaauw 2010, Quaternary Geochronology 5:512-518). In iteration i every core's depths go to composite
 /// depth through member i of its alignment ensemble, so correlation uncertainty enters the ages; every
 /// control's age is drawn from its full distribution (inverse CDF of the calibrated density; normal for
-/// calendar ages; anchor and systematic counting error for varves); and the ages are interpolated.
+/// calendar ages; anchor and systematic counting error for varves); and the ages are interpolated. Unless the
+/// project's <c>rate_variability</c> is 0, the accumulation rate then takes a bridged random walk between and
+/// beyond the controls (<see cref="RateWalk"/>), so the ranges between controls allow for the rate changing.
 /// <para>
 /// Stratigraphic order is kept by rejection: an iteration redraws all control ages until no age decreases
 /// with depth, up to <see cref="MaxOrderAttempts"/> times, each from the iteration's own random streams. When
@@ -61,6 +63,7 @@ public static class AgeModeller
         int seed = p.AgeModel.Seed;
         int iterations = Math.Max(1, p.AgeModel.Iterations);
         var interpolation = AgeInterpolations.Parse(p.AgeModel.Interpolation);
+        double step = p.Composite.Step > 0 ? p.Composite.Step : 1;
         var findings = new FindingList();
 
         // Prepare every control; keep the problem of those that cannot be used.
@@ -87,13 +90,20 @@ public static class AgeModeller
             return new AgeModelResult(seed, interpolation, unit, [], empty, new Dictionary<string, AgeSeries>(), null, 0, findings);
         }
 
+        RateWalk? walk = null;
+        if (p.AgeModel.RateVariability > 0)
+        {
+            var (top, bottom) = QueryExtent(project, alignment, iterations, prepared, active);
+            walk = new RateWalk(p.AgeModel.RateVariability, step, top - step, bottom + step);
+        }
+
         var draws = new IterationDraws(specs.Count, iterations);
         var curves = new AgeDepthCurve[iterations];
         int done = 0, forced = 0;
         var options = new ParallelOptions { CancellationToken = ct };
         Parallel.For(0, iterations, options, () => new IterationBuffers(prepared, active, measured), (i, _, buffers) =>
         {
-            curves[i] = Iterate(i, seed, prepared, active, measured, alignment, interpolation, buffers, draws, ref forced);
+            curves[i] = Iterate(i, seed, prepared, active, measured, alignment, interpolation, walk, buffers, draws, ref forced);
             int d = Interlocked.Increment(ref done);
             if (progress is not null && (d % Math.Max(1, iterations / 100) == 0 || d == iterations))
                 progress.Report(new WorkProgress("age model: iterations", d / (double)iterations));
@@ -123,7 +133,7 @@ public static class AgeModeller
                 findings.Add(Finding.Warning(AgeModelCodes.NoMapping, $"core {core.Id} has no depth mapping to the composite scale: no ages for its samples.") with { Core = core.Id });
                 continue;
             }
-            var depths = table.Unit == unit ? table.Depths : table.Depths.Select(d => DepthUnits.Convert(d, table.Unit, unit)).ToArray();
+            var depths = DepthsIn(table, unit);
             var series = Summarise(core.Id, false, unit, depths, ensemble, curves, options);
             cores[core.Id] = series;
             NoteExtrapolation(series, findings);
@@ -136,12 +146,48 @@ public static class AgeModeller
             gridTop = Median(curves.Select(c => c.TopDepth));
             gridBottom = Median(curves.Select(c => c.BottomDepth));
         }
-        double step = p.Composite.Step > 0 ? p.Composite.Step : 1;
         int first = (int)Math.Floor(gridTop / step), last = (int)Math.Ceiling(gridBottom / step);
         var grid = Enumerable.Range(first, last - first + 1).Select(k => k * step).ToArray();
         var composite = Summarise("composite", true, unit, grid, null, curves, options);
 
         return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings);
+    }
+
+    private static double[] DepthsIn(Tables.CoreTable table, DepthUnit unit) =>
+        table.Unit == unit ? table.Depths : table.Depths.Select(d => DepthUnits.Convert(d, table.Unit, unit)).ToArray();
+
+    /// <summary>
+    /// Shallowest and deepest composite depth the run will ask ages for: every core's end samples through the median
+    /// and every member of its mapping, and the controls' points through the members the iterations use.
+    /// </summary>
+    private static (double Top, double Bottom) QueryExtent(LoadedProject project, AlignmentResult alignment, int iterations,
+        PreparedControl?[] prepared, int[] active)
+    {
+        var unit = project.Project.DepthUnit;
+        double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
+        void Reach(DepthMapping mapping, double depth)
+        {
+            double z = mapping.ToCompositeValue(depth);
+            top = Math.Min(top, z);
+            bottom = Math.Max(bottom, z);
+        }
+        foreach (var core in project.Project.Cores)
+        {
+            if (!project.Tables.TryGetValue(core.Id, out var table) || table.Count == 0) continue;
+            if (!alignment.Mappings.TryGetValue(core.Id, out var ensemble)) continue;
+            var depths = DepthsIn(table, unit);
+            foreach (var mapping in ensemble.Members.Append(ensemble.Median))
+            {
+                Reach(mapping, depths[0]);
+                Reach(mapping, depths[^1]);
+            }
+        }
+        int members = alignment.Mappings.Values.Max(e => Math.Max(1, e.Members.Count));
+        foreach (int c in active)
+            for (int q = 0; q < prepared[c]!.PointCount; q++)
+                for (int i = 0; i < Math.Min(iterations, members); i++)
+                    Reach(alignment.Mappings[prepared[c]!.PointCores[q]].Member(i), prepared[c]!.PointDepths[q]);
+        return (top, bottom);
     }
 
     private static PreparedControl? Prepare(LoadedProject project, AlignmentResult alignment,
@@ -264,7 +310,7 @@ public static class AgeModeller
     }
 
     private static AgeDepthCurve Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, AlignmentResult alignment,
-        AgeInterpolation interpolation, IterationBuffers b, IterationDraws draws, ref int forced)
+        AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
     {
         int nControls = prepared.Length;
         foreach (int c in measured)
@@ -325,7 +371,9 @@ public static class AgeModeller
             pos += prepared[c]!.PointCount;
         }
 
-        return BuildCurve(b.Order, depth, age, interpolation, i);
+        var curve = BuildCurve(b.Order, depth, age, interpolation, i);
+        // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
+        return walk is null ? curve : walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
     }
 
     /// <summary>
@@ -565,10 +613,11 @@ public static class AgeModeller
                 var curve = curves[i];
                 double[]? zs = ensemble is null ? null : composite[memberOf[i]];
                 double[]? rs = ensemble is null ? null : ratio[memberOf[i]];
+                int segment = -1;
                 for (int s = 0; s < len; s++)
                 {
                     double z = zs is null ? depths[from + s] : zs[from + s];
-                    buf.Ages[s * members + i] = curve.AgeAt(z, out double yearsPerUnit);
+                    buf.Ages[s * members + i] = curve.AgeAtAscending(z, ref segment, out double yearsPerUnit);
                     buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
                     if (curve.IsExtrapolated(z)) outside[s]++;
                 }

@@ -1,13 +1,13 @@
 using System.Globalization;
-using System.Text;
+using StratLink.Export;
 using StratLink.ProjectIO;
 
 namespace StratLink.Analysis;
 
 /// <summary>
 /// Writes an <see cref="AnalysisResult"/> as tables (spectrum.csv, shifts.csv, filtered.csv, summary.csv; comma
-/// separated, invariant culture, empty field = no value) and figures (spectrum.svg, shifts.svg, filtered.svg).
-/// Columns vary with the periods asked for and the presence of an ensemble, so rows are written directly.
+/// separated through <see cref="DelimitedTableWriter"/>) and figures (spectrum.svg, shifts.svg, filtered.svg).
+/// Columns vary with the periods asked for and the presence of an ensemble.
 /// </summary>
 public static class AnalysisOutputs
 {
@@ -21,9 +21,9 @@ public static class AnalysisOutputs
             ("shifts.csv", ShiftsTable(result)),
             ("filtered.csv", FilteredTable(result)),
             ("summary.csv", SummaryTable(result)),
-            ("spectrum.svg", AnalysisFigures.Spectrum(result)),
-            ("shifts.svg", AnalysisFigures.Shifts(result)),
-            ("filtered.svg", AnalysisFigures.Filtered(result)),
+            ("spectrum.svg", AnalysisFigures.Spectrum(result).ToXml()),
+            ("shifts.svg", AnalysisFigures.Shifts(result).ToXml()),
+            ("filtered.svg", AnalysisFigures.Filtered(result).ToXml()),
         };
         foreach (var (name, text) in files) AtomicFile.WriteAllText(Path.Combine(directory, name), text, keepBackup: false);
         return files.Select(f => f.Name).ToList();
@@ -36,47 +36,46 @@ public static class AnalysisOutputs
         header.AddRange(SignificanceLevels.Percents.Select(p => $"chi2_{p}"));
         if (s.MonteCarloLevels is not null) header.AddRange(SignificanceLevels.Percents.Select(p => $"mc_{p}"));
         if (r.Ensemble is not null) header.Add("members_above_chi2_95_share");
-        var sb = new StringBuilder(string.Join(',', header)).Append('\n');
-        for (int k = 0; k < s.Frequencies.Length; k++)
+        return Table(header, w =>
         {
-            var row = new List<double> { s.Frequencies[k], s.Periods[k], s.Power[k], s.RawPower[k], s.Background[k] };
-            row.AddRange(s.ChiSquareLevels.Select(l => l[k]));
-            if (s.MonteCarloLevels is { } mc) row.AddRange(mc.Select(l => l[k]));
-            if (r.Ensemble is { } e) row.Add(e.ShareAbove95[k]);
-            sb.Append(string.Join(',', row.Select(Number))).Append('\n');
-        }
-        return sb.ToString();
+            for (int k = 0; k < s.Frequencies.Length; k++)
+            {
+                w.Number(s.Frequencies[k]).Number(s.Periods[k]).Number(s.Power[k]).Number(s.RawPower[k]).Number(s.Background[k]);
+                foreach (var level in s.ChiSquareLevels) w.Number(level[k]);
+                if (s.MonteCarloLevels is { } mc) foreach (var level in mc) w.Number(level[k]);
+                if (r.Ensemble is { } e) w.Number(e.ShareAbove95[k]);
+                w.EndRow();
+            }
+        });
     }
 
-    internal static string ShiftsTable(AnalysisResult r)
-    {
-        var sb = new StringBuilder("index,age_bp,mean_before,mean_after,rsi,tentative,members_age_lo_bp,members_age_hi_bp,members_matched_share\n");
-        for (int i = 0; i < r.Regimes.Shifts.Count; i++)
+    internal static string ShiftsTable(AnalysisResult r) =>
+        Table(["index", "age_bp", "mean_before", "mean_after", "rsi", "tentative", "members_age_lo_bp", "members_age_hi_bp", "members_matched_share"], w =>
         {
-            var s = r.Regimes.Shifts[i];
-            var spread = r.Ensemble?.Shifts[i];
-            sb.Append(s.Index.ToString(CultureInfo.InvariantCulture)).Append(',')
-              .Append(string.Join(',', new[] { s.AgeBP, s.MeanBefore, s.MeanAfter, s.Rsi }.Select(Number))).Append(',')
-              .Append(s.Tentative ? "true" : "false").Append(',')
-              .Append(string.Join(',', new[] { spread?.AgeLoBP ?? double.NaN, spread?.AgeHiBP ?? double.NaN, spread?.ShareMatched ?? double.NaN }.Select(Number)))
-              .Append('\n');
-        }
-        return sb.ToString();
-    }
+            for (int i = 0; i < r.Regimes.Shifts.Count; i++)
+            {
+                var s = r.Regimes.Shifts[i];
+                var spread = r.Ensemble?.Shifts[i];
+                w.Number(s.Index).Number(s.AgeBP).Number(s.MeanBefore).Number(s.MeanAfter).Number(s.Rsi).Bool(s.Tentative)
+                 .Number(spread?.AgeLoBP ?? double.NaN).Number(spread?.AgeHiBP ?? double.NaN).Number(spread?.ShareMatched ?? double.NaN);
+                w.EndRow();
+            }
+        });
 
     internal static string FilteredTable(AnalysisResult r)
     {
         var f = r.Filtered;
         var header = new List<string> { "age_bp", "value", "lowpass" };
         header.AddRange(f.BandPasses.Select(b => "bandpass_" + Number(b.CentrePeriodYears) + "yr"));
-        var sb = new StringBuilder(string.Join(',', header)).Append('\n');
-        for (int i = 0; i < f.AgesBP.Length; i++)
+        return Table(header, w =>
         {
-            var row = new List<double> { f.AgesBP[i], f.Values[i], f.LowPass.Values[i] };
-            row.AddRange(f.BandPasses.Select(b => b.Values[i]));
-            sb.Append(string.Join(',', row.Select(Number))).Append('\n');
-        }
-        return sb.ToString();
+            for (int i = 0; i < f.AgesBP.Length; i++)
+            {
+                w.Number(f.AgesBP[i]).Number(f.Values[i]).Number(f.LowPass.Values[i]);
+                foreach (var b in f.BandPasses) w.Number(b.Values[i]);
+                w.EndRow();
+            }
+        });
     }
 
     internal static string SummaryTable(AnalysisResult r)
@@ -124,13 +123,24 @@ public static class AnalysisOutputs
             rows.Add(($"period_{p}yr_power_over_level95", Number(c.PowerOverLevel95)));
             rows.Add(($"period_{p}yr_members_above_95_share", Number(c.ShareOfMembersAbove95 ?? double.NaN)));
         }
-        var sb = new StringBuilder("key,value\n");
-        foreach (var (k, v) in rows) sb.Append(k).Append(',').Append(Quote(v)).Append('\n');
-        return sb.ToString();
+        return Table(["key", "value"], w =>
+        {
+            foreach (var (k, v) in rows)
+            {
+                w.Text(k).Text(v);
+                w.EndRow();
+            }
+        });
     }
 
-    internal static string Number(double v) =>
-        double.IsNaN(v) ? "" : double.IsPositiveInfinity(v) ? "inf" : double.IsNegativeInfinity(v) ? "-inf" : v.ToString("R", CultureInfo.InvariantCulture);
+    private static string Number(double v) => DelimitedTableWriter.Format(v);
 
-    private static string Quote(string v) => v.IndexOfAny([',', '"', '\n']) >= 0 ? "\"" + v.Replace("\"", "\"\"") + "\"" : v;
+    private static string Table(IReadOnlyList<string> header, Action<DelimitedTableWriter> writeRows)
+    {
+        var text = new StringWriter(CultureInfo.InvariantCulture);
+        var w = new DelimitedTableWriter(text, TableFormat.Csv);
+        w.Header(header);
+        writeRows(w);
+        return text.ToString();
+    }
 }

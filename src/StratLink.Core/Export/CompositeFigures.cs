@@ -15,6 +15,10 @@ public static partial class CompositeFigures
     private const double W = 900, H = 480, Left = 80, Right = 20, Top = 60;
     private const double MainHeight = 270, StripTop = Top + MainHeight + 50, StripHeight = 50;
 
+    private static readonly SvgStyle BandStyle = SvgStyle.Filled(SvgStyle.BandGrey);
+    private static readonly SvgStyle MeanStyle = SvgStyle.Solid with { StrokeWidth = 1.2 };
+    private static readonly SvgStyle SpliceStyle = SvgStyle.Dashed with { StrokeWidth = 0.8 };
+
     /// <summary>The signal's composite against composite depth (<paramref name="againstAge"/> false) or age; null when there are no ages.</summary>
     public static SvgCanvas? Profile(CompositeResult result, StackedRecord record, bool againstAge)
     {
@@ -28,28 +32,25 @@ public static partial class CompositeFigures
         string what = againstAge ? "age" : "composite depth";
         var canvas = new SvgCanvas(W, H, $"{record.Signal}: stacked composite against {what}");
 
-        var (xMin, xMax) = Range(x);
-        var (yMin, yMax) = Range(record.Lo.Concat(record.Hi).Concat(record.Mean).Concat(record.Spliced));
+        var (xMin, xMax) = Extent(x);
+        var (yMin, yMax) = Extent(record.Lo.Concat(record.Hi).Concat(record.Mean).Concat(record.Spliced));
         double pad = (yMax - yMin) * 0.05;
         var plot = new PlotArea(canvas, Left, Top, W - Left - Right, MainHeight, (xMin, xMax), (yMin - pad, yMax + pad));
         plot.DrawAxes(xLabel, yLabel);
         canvas.Text(Left, 22, $"{record.Signal}: mean of up to {MaxOf(record.N)} cores with the 2.5-97.5 % band over cores and alignments; dashed: splice"
             + (record.Standardised ? " (per-core z-scores)" : ""), cssClass: "title");
 
-        canvas.Path(BandOutline(plot, x, record.Lo, record.Hi), SvgStyle.Filled("#c8c8c8"), "band", $"band-{Safe(record.Signal)}", close: true);
-        canvas.Path(Series(plot, x, record.Mean), new SvgStyle { StrokeWidth = 1.2 }, "mean", $"mean-{Safe(record.Signal)}");
-        canvas.Path(Series(plot, x, record.Spliced), SvgStyle.Dashed with { StrokeWidth = 0.8 }, "splice", $"splice-{Safe(record.Signal)}");
-        Legend(canvas, Left, 42);
+        canvas.Path(plot.BandOutline(x, record.Lo, record.Hi), BandStyle, "band", $"band-{Safe(record.Signal)}", close: true);
+        canvas.Path(plot.Series(x, record.Mean), MeanStyle, "mean", $"mean-{Safe(record.Signal)}");
+        canvas.Path(plot.Series(x, record.Spliced), SpliceStyle, "splice", $"splice-{Safe(record.Signal)}");
+        var legend = canvas.Group("legend");
+        double key = canvas.Key(Left, 42, BandStyle, "95 % band (cores and alignments)", legend);
+        key = canvas.Key(key, 42, MeanStyle, "mean of cores", legend);
+        canvas.Key(key, 42, SpliceStyle, "splice (one core at a time)", legend);
 
         var strip = new PlotArea(canvas, Left, StripTop, W - Left - Right, StripHeight, (xMin, xMax), (0, Math.Max(1, MaxOf(record.N))));
         strip.DrawAxes(xLabel, "cores (n)", grid: false, yTickTarget: Math.Max(1, MaxOf(record.N)));
-        var steps = new List<(double, double)>();
-        for (int r = 0; r < rows; r++)
-        {
-            if (double.IsNaN(x[r])) { steps.Add((double.NaN, double.NaN)); continue; }
-            steps.Add((strip.Px(x[r]), strip.Py(record.N[r])));
-        }
-        canvas.Path(steps, SvgStyle.Solid, "count", $"n-{Safe(record.Signal)}");
+        canvas.Path(strip.Series(x, record.N.Select(n => (double)n).ToArray()), SvgStyle.Solid, "count", $"n-{Safe(record.Signal)}");
         return canvas;
     }
 
@@ -75,48 +76,10 @@ public static partial class CompositeFigures
     [GeneratedRegex("[^A-Za-z0-9._-]")]
     private static partial Regex UnsafeChars();
 
-    /// <summary>One row of keys above the plot, so it never hides data.</summary>
-    private static void Legend(SvgCanvas canvas, double x, double y)
+    /// <summary>The finite values' range; (0, 1) when there are none.</summary>
+    private static (double Min, double Max) Extent(IEnumerable<double> values)
     {
-        var g = canvas.Group("legend");
-        canvas.Rect(x, y - 8, 24, 8, SvgStyle.Filled("#c8c8c8"), parent: g);
-        canvas.Text(x + 30, y, "95 % band (cores and alignments)", parent: g);
-        canvas.Line(x + 230, y - 4, x + 254, y - 4, new SvgStyle { StrokeWidth = 1.2 }, parent: g);
-        canvas.Text(x + 260, y, "mean of cores", parent: g);
-        canvas.Line(x + 370, y - 4, x + 394, y - 4, SvgStyle.Dashed with { StrokeWidth = 0.8 }, parent: g);
-        canvas.Text(x + 400, y, "splice (one core at a time)", parent: g);
-    }
-
-    private static IEnumerable<(double, double)> Series(PlotArea plot, double[] x, IReadOnlyList<double> y)
-    {
-        for (int r = 0; r < x.Length; r++)
-            yield return double.IsNaN(x[r]) || double.IsNaN(y[r]) ? (double.NaN, double.NaN) : (plot.Px(x[r]), plot.Py(y[r]));
-    }
-
-    /// <summary>Each run of rows with a band: along the top edge, then back along the bottom edge.</summary>
-    private static IEnumerable<(double, double)> BandOutline(PlotArea plot, double[] x, IReadOnlyList<double> lo, IReadOnlyList<double> hi)
-    {
-        int r = 0;
-        while (r < x.Length)
-        {
-            if (double.IsNaN(x[r]) || double.IsNaN(lo[r]) || double.IsNaN(hi[r])) { r++; continue; }
-            int start = r;
-            while (r < x.Length && !double.IsNaN(x[r]) && !double.IsNaN(lo[r]) && !double.IsNaN(hi[r])) r++;
-            for (int k = start; k < r; k++) yield return (plot.Px(x[k]), plot.Py(hi[k]));
-            for (int k = r - 1; k >= start; k--) yield return (plot.Px(x[k]), plot.Py(lo[k]));
-            yield return (double.NaN, double.NaN);
-        }
-    }
-
-    private static (double Min, double Max) Range(IEnumerable<double> values)
-    {
-        double min = double.PositiveInfinity, max = double.NegativeInfinity;
-        foreach (double v in values)
-        {
-            if (!double.IsFinite(v)) continue;
-            if (v < min) min = v;
-            if (v > max) max = v;
-        }
+        var (min, max) = PlotArea.Extent(values);
         return min <= max ? (min, max) : (0, 1);
     }
 

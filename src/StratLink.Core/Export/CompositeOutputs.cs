@@ -39,6 +39,7 @@ public static class CompositeOutputs
         return files;
     }
 
+    /// <summary>Streams through <see cref="AtomicFile"/>, so a reader never sees half a table.</summary>
     private static string WriteFile(string path, Action<TextWriter> write)
     {
         AtomicFile.Write(path, write, keepBackup: false);

@@ -57,10 +57,10 @@ public static class CorrelationPanel
             canvas.Text(colLeft[i] + colWidth[i] / 2, Top - 40, header, "middle", cssClass: "core-name", parent: g, fontSize: 13);
             foreach (var gap in spec.Gaps)
                 canvas.Rect(colLeft[i], area.Py(gap.Top.In(unit)), colWidth[i], area.Py(gap.Bottom.In(unit)) - area.Py(gap.Top.In(unit)),
-                    new SvgStyle { Fill = hatch, StrokeWidth = 0.5 }, "gap", parent: g);
+                    GapStyle(hatch), "gap", parent: g);
             foreach (var dist in spec.Disturbed)
                 canvas.Rect(colLeft[i], area.Py(dist.Top.In(unit)), colWidth[i], area.Py(dist.Bottom.In(unit)) - area.Py(dist.Top.In(unit)),
-                    new SvgStyle { Fill = "#e4e4e4", StrokeWidth = 0.5, Dash = "2 2" }, "disturbed", parent: g);
+                    DisturbedStyle, "disturbed", parent: g);
             for (int t = 0; t < tracks[i].Count; t++)
             {
                 string signal = tracks[i][t];
@@ -73,7 +73,7 @@ public static class CorrelationPanel
             foreach (var piece in result.Splice.Pieces.Where(p => p.Core == spec.Id))
             {
                 double top = area.Py(piece.CoreFrom.In(unit)), bottom = area.Py(piece.CoreTo.In(unit));
-                canvas.Rect(colLeft[i] - SpliceBarOffset - SpliceBarWidth / 2, top, SpliceBarWidth, bottom - top, SvgStyle.Filled("black"), "splice", parent: g);
+                canvas.Rect(colLeft[i] - SpliceBarOffset - SpliceBarWidth / 2, top, SpliceBarWidth, bottom - top, SpliceStyle, "splice", parent: g);
             }
         }
 
@@ -122,11 +122,16 @@ public static class CorrelationPanel
     /// <summary>Tephras solid and heavier, turbidites dashed, floods dotted, other events dash-dotted.</summary>
     private static SvgStyle TieStyle(MarkerKind kind) => kind switch
     {
-        MarkerKind.Tephra => new SvgStyle { StrokeWidth = 1.4 },
-        MarkerKind.Turbidite => new SvgStyle { StrokeWidth = 1, Dash = "6 3" },
-        MarkerKind.Flood => new SvgStyle { StrokeWidth = 1, Dash = "1.5 2.5" },
-        _ => new SvgStyle { StrokeWidth = 1, Dash = "8 3 2 3" },
+        MarkerKind.Tephra => SvgStyle.Solid with { StrokeWidth = 1.4 },
+        MarkerKind.Turbidite => SvgStyle.Dashed,
+        MarkerKind.Flood => SvgStyle.Dotted,
+        _ => SvgStyle.DashDot,
     };
+
+    private static SvgStyle GapStyle(string hatch) => new() { Fill = hatch, StrokeWidth = 0.5 };
+
+    private static readonly SvgStyle DisturbedStyle = new() { Fill = SvgStyle.PaleGrey, StrokeWidth = 0.5, Dash = "2 2" };
+    private static readonly SvgStyle SpliceStyle = SvgStyle.Filled("black");
 
     /// <summary>The signal across its track, scaled to its 1-99 % range; breaks at missing values, gaps and disturbed intervals.</summary>
     private static IEnumerable<(double, double)> Trace(double[] depths, double[] values, CoreSpec spec, PlotArea area, double left)
@@ -148,18 +153,10 @@ public static class CorrelationPanel
     private static void Legend(SvgCanvas canvas, double x, double y, string hatch)
     {
         var g = canvas.Group("legend");
-        canvas.Rect(x, y - 8, 18, 10, new SvgStyle { Fill = hatch, StrokeWidth = 0.5 }, parent: g);
-        canvas.Text(x + 24, y + 1, "gap (no recovery)", parent: g);
-        canvas.Rect(x + 140, y - 8, 18, 10, new SvgStyle { Fill = "#e4e4e4", StrokeWidth = 0.5, Dash = "2 2" }, parent: g);
-        canvas.Text(x + 164, y + 1, "disturbed", parent: g);
-        canvas.Rect(x + 250, y - 8, SpliceBarWidth, 10, SvgStyle.Filled("black"), parent: g);
-        canvas.Text(x + 260, y + 1, "splice interval", parent: g);
-        double lx = x + 370;
+        x = canvas.Key(x, y, GapStyle(hatch), "gap (no recovery)", g, swatchWidth: 18);
+        x = canvas.Key(x, y, DisturbedStyle, "disturbed", g, swatchWidth: 18);
+        x = canvas.Key(x, y, SpliceStyle, "splice interval", g, swatchWidth: SpliceBarWidth);
         foreach (var (kind, name) in new[] { (MarkerKind.Tephra, "tephra"), (MarkerKind.Turbidite, "turbidite"), (MarkerKind.Flood, "flood"), (MarkerKind.Event, "other marker") })
-        {
-            canvas.Line(lx, y - 3, lx + 24, y - 3, TieStyle(kind), parent: g);
-            canvas.Text(lx + 28, y + 1, name, parent: g);
-            lx += 100;
-        }
+            x = canvas.Key(x, y, TieStyle(kind), name, g);
     }
 }

@@ -6,7 +6,7 @@ namespace StratLink.Export;
 /// <summary>
 /// Writes one table as delimited text: one header row (units belong in the column names), then rows
 /// of cells. Numbers use the invariant culture and the shortest text that reads back to the same
-/// double; NaN is an empty cell. Text with the delimiter, a quote or a line break is quoted as in
+/// double; NaN is an empty cell, infinities are <c>inf</c> and <c>-inf</c>. Text with the delimiter, a quote or a line break is quoted as in
 /// RFC 4180. Lines end with LF. No comment lines.
 /// </summary>
 public sealed class DelimitedTableWriter
@@ -32,7 +32,14 @@ public sealed class DelimitedTableWriter
         EndRow();
     }
 
-    public DelimitedTableWriter Number(double value) => Raw(double.IsNaN(value) ? "" : value.ToString("R", CultureInfo.InvariantCulture));
+    public DelimitedTableWriter Number(double value) => Raw(Format(value));
+
+    /// <summary>A number as a cell holds it, for numbers inside text cells and column names.</summary>
+    public static string Format(double value) =>
+        double.IsNaN(value) ? "" : double.IsPositiveInfinity(value) ? "inf" : double.IsNegativeInfinity(value) ? "-inf"
+        : value.ToString("R", CultureInfo.InvariantCulture);
+
+    public DelimitedTableWriter Bool(bool value) => Raw(value ? "true" : "false");
 
     public DelimitedTableWriter Number(int value) => Raw(value.ToString(CultureInfo.InvariantCulture));
 

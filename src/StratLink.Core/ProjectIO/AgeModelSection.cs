@@ -16,10 +16,13 @@ internal static class AgeModelSection
             Iterations = m.Int("iterations") ?? s.Iterations,
             Seed = m.Int("seed") ?? s.Seed,
             Interpolation = m.String("interpolation") ?? s.Interpolation,
+            RateVariability = m.Double("rate_variability") ?? s.RateVariability,
         };
         if (s.Iterations < 1) m.Error("iterations", "at least one iteration is needed");
         if (!Interpolations.Contains(s.Interpolation))
             m.Error("interpolation", $"unknown interpolation '{s.Interpolation}' ({string.Join(" or ", Interpolations)})");
+        if (!(s.RateVariability >= 0) || double.IsInfinity(s.RateVariability))
+            m.Error("rate_variability", "must be a finite number, 0 or more (0: straight lines between controls)");
         m.Finish();
         return s;
     }
@@ -32,6 +35,7 @@ internal static class AgeModelSection
             { "seed", YamlOut.Num(s.Seed) },
         };
         if (s.Interpolation != "linear") n.Add("interpolation", YamlOut.Str(s.Interpolation));
+        if (s.RateVariability != AgeModelSettings.DefaultRateVariability) n.Add("rate_variability", YamlOut.Num(s.RateVariability));
         return n;
     }
 }

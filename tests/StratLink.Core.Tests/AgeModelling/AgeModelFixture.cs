@@ -20,7 +20,8 @@ internal static class AgeModelFixture
         new() { Id = id, Core = core, Depth = D(depth), Age = CalendarAge.FromYearsBP(age), Error = error, Exclude = exclude };
 
     public static LoadedProject Project(IEnumerable<AgeControlSpec> ages, IReadOnlyDictionary<string, double[]> sampleDepths,
-        int iterations = 1000, int seed = 7, string interpolation = "linear", IEnumerable<MarkerSpec>? markers = null, double step = 1.0)
+        int iterations = 1000, int seed = 7, string interpolation = "linear", IEnumerable<MarkerSpec>? markers = null, double step = 1.0,
+        double rateVariability = AgeModelSettings.DefaultRateVariability)
     {
         var project = new Project
         {
@@ -28,7 +29,7 @@ internal static class AgeModelFixture
             Cores = [.. sampleDepths.Keys.Select(id => new CoreSpec { Id = id, Table = $"{id}.csv" })],
             Markers = [.. markers ?? []],
             Ages = [.. ages],
-            AgeModel = new AgeModelSettings { Iterations = iterations, Seed = seed, Interpolation = interpolation },
+            AgeModel = new AgeModelSettings { Iterations = iterations, Seed = seed, Interpolation = interpolation, RateVariability = rateVariability },
             Composite = new CompositeSettings { Step = step },
         };
         var tables = sampleDepths.ToDictionary(kv => kv.Key, kv => new CoreTable(kv.Key, Unit, kv.Value, new Dictionary<string, double[]>()));

@@ -30,9 +30,10 @@ public class AgeModellerTests
     {
         // Two cores: R is the reference; B maps by composite = 1.2 d + 3 with an alignment ensemble of +-10 cm.
         // Five calendar controls in R with 30-yr errors. The 95 % ranges should hold the truth for at least 90 %
-        // of samples (nominal 95 %; bound allows for the one fixed noise draw of the controls).
+        // of samples (nominal 95 %; bound allows for the one fixed noise draw of the controls). The truth is a
+        // straight line, so straight lines between controls (rate variability 0) are the right model here.
         var project = Project(NoisyControls([0, 50, 120, 200, 300], 30, seed: 3),
-            new Dictionary<string, double[]> { ["R"] = Range(0, 300, 1), ["B"] = Range(0, 245, 1) }, iterations: 1000);
+            new Dictionary<string, double[]> { ["R"] = Range(0, 300, 1), ["B"] = Range(0, 245, 1) }, iterations: 1000, rateVariability: 0);
         var alignment = Aligned(Affine("R", 1, 0), AffineWithMembers("B", 1.2, 3, 10, 50));
         var result = Run(project, alignment);
         Assert.True(result.IsBuilt);
@@ -66,7 +67,7 @@ public class AgeModellerTests
         // Exact controls on a 10 yr/cm line: the rate is 0.1 cm/yr in R, and 0.12 cm/yr in B whose depths
         // are 1/1.2 of composite (d core / d age = (d composite / d age) / 1.2... inverted: 0.1 / 1.2 x 1.2^2).
         var project = Project([Calendar("a", "R", 10, Truth(10), 0), Calendar("b", "R", 200, Truth(200), 0)],
-            new Dictionary<string, double[]> { ["R"] = Range(0, 250, 5), ["B"] = Range(0, 200, 5) }, iterations: 50, step: 2);
+            new Dictionary<string, double[]> { ["R"] = Range(0, 250, 5), ["B"] = Range(0, 200, 5) }, iterations: 50, step: 2, rateVariability: 0);
         var result = Run(project, Aligned(Affine("R", 1, 0), Affine("B", 1.2, 3)));
         Assert.All(result.Cores["R"].RateMedian, r => Assert.Equal(0.1, r, 1e-9));
         Assert.All(result.Cores["B"].RateMedian, r => Assert.Equal(0.1 / 1.2, r, 1e-9));
@@ -88,7 +89,7 @@ public class AgeModellerTests
     {
         // Linear extrapolation with the nearest segment's rate (methods section 3, common practice).
         var project = Project([Calendar("a", "R", 50, 400, 0), Calendar("b", "R", 100, 900, 0), Calendar("c", "R", 150, 1200, 0)],
-            new Dictionary<string, double[]> { ["R"] = Range(0, 200, 10) }, iterations: 20);
+            new Dictionary<string, double[]> { ["R"] = Range(0, 200, 10) }, iterations: 20, rateVariability: 0);
         var result = Run(project, Aligned(Affine("R", 1, 0)));
         var s = result.Cores["R"];
         Assert.Equal(-100, s.AgeMedianBP[0], 1e-9);     // 400 - 50 x 10 yr/cm (top segment)
@@ -259,20 +260,24 @@ public class AgeModellerTests
         // Fritsch and Carlson 1980: the PCHIP interpolant of monotone data stays monotone; linear data are reproduced (methods check).
         var depths = new Dictionary<string, double[]> { ["R"] = Range(0, 300, 0.5) };
         var linear = Run(Project([Calendar("a", "R", 0, Truth(0), 0), Calendar("b", "R", 100, Truth(100), 0), Calendar("c", "R", 300, Truth(300), 0)],
-            depths, iterations: 5, interpolation: "monotone-spline"), Aligned(Affine("R", 1, 0)));
+            depths, iterations: 5, interpolation: "monotone-spline", rateVariability: 0), Aligned(Affine("R", 1, 0)));
         Assert.All(linear.Cores["R"].Depths.Zip(linear.Cores["R"].AgeMedianBP), t => Assert.Equal(Truth(t.First), t.Second, 1e-9));
 
-        var wiggly = Run(Project(NoisyControls([0, 20, 30, 120, 130, 300], 40, seed: 5), depths, iterations: 100, interpolation: "monotone-spline"),
-            Aligned(Affine("R", 1, 0)));
-        Assert.Equal(AgeInterpolation.MonotoneSpline, wiggly.Interpolation);
-        foreach (var member in wiggly.Members)
+        // With and without the rate walk on the spline, every member stays monotone.
+        foreach (double variability in new[] { 0, AgeModelSettings.DefaultRateVariability })
         {
-            double prev = double.NegativeInfinity;
-            for (double z = -10; z <= 310; z += 0.25)
+            var wiggly = Run(Project(NoisyControls([0, 20, 30, 120, 130, 300], 40, seed: 5), depths, iterations: 100, interpolation: "monotone-spline",
+                rateVariability: variability), Aligned(Affine("R", 1, 0)));
+            Assert.Equal(AgeInterpolation.MonotoneSpline, wiggly.Interpolation);
+            foreach (var member in wiggly.Members)
             {
-                double a = member.AgeAt(z);
-                Assert.True(a >= prev - 1e-9, $"age decreases at {z}");
-                prev = a;
+                double prev = double.NegativeInfinity;
+                for (double z = -10; z <= 310; z += 0.25)
+                {
+                    double a = member.AgeAt(z);
+                    Assert.True(a >= prev - 1e-9, $"age decreases at {z}");
+                    prev = a;
+                }
             }
         }
     }
@@ -292,7 +297,7 @@ public class AgeModellerTests
     [Fact]
     public void AgesCsvHasUnitsInvariantNumbersAndAscendingDepths()
     {
-        var project = Project([Calendar("a", "R", 0, -60, 0), Calendar("b", "R", 100, 940, 0)], new Dictionary<string, double[]> { ["R"] = [0.5, 10.25, 99.5] }, iterations: 5);
+        var project = Project([Calendar("a", "R", 0, -60, 0), Calendar("b", "R", 100, 940, 0)], new Dictionary<string, double[]> { ["R"] = [0.5, 10.25, 99.5] }, iterations: 5, rateVariability: 0);
         var result = Run(project, Aligned(Affine("R", 1, 0)));
         var sw = new StringWriter();
         AgesCsvWriter.Write(sw, result.Cores["R"]);

@@ -50,16 +50,13 @@ public class DemoSiteAgeTests
     public void DemoTruthAgainstModelledAges()
     {
         // The demo generator's hidden truth (true age of every sample) is the outside reference; the mappings are
-        // tie lines through the markers. Checks:
-        //  - the varved core, dated by its own count and the coring year, holds the true age in its 95 % ranges for
-        //    at least 90 % of samples (nominal 95 %);
+        // tie lines through the markers. Checks, with the default accumulation-rate variability:
+        //  - in every core the 95 % ranges hold the true age for at least 90 % of samples (nominal 95 %; the bound
+        //    allows for one fixed site whose samples are strongly correlated along depth). With straight lines between
+        //    tephras 250-370 cm apart (rate_variability 0) the piston cores held only about 72 % and the gravity core
+        //    about 25 %: classical models underestimate uncertainty (Blaauw et al. 2018, QSR 188:58-66);
         //  - in every core the median |median age - true age| is within 80 yr, twice the largest 1-sigma of the
         //    controls (ash-3, 40 yr).
-        // Known shortfall, printed: in the piston and gravity cores the ranges hold the truth for only about 70 %
-        // (piston) and 25-50 % (gravity) of samples. Linear interpolation between tephras 250-370 cm apart carries no
-        // accumulation-rate variability, and ash-2's stated age is 1.7 sigma from its true age; the same happens with
-        // the true mappings, so it is the age model's interpolation, not the correlation (methods section 3:
-        // classical models underestimate uncertainty).
         var site = DemoSiteGenerator.Generate(1);
         string file = Path.Combine(Path.GetTempPath(), "stratlink-demo-ages", site.ProjectFileName);
         var loaded = new LoadedProject(new ProjectDocument(file, site.Project, new FindingList(), new SourceMap(file)), site.Project, site.Tables, new FindingList());
@@ -87,7 +84,7 @@ public class DemoSiteAgeTests
             double share = inside / (double)s.Count, medianError = Statistics.PercentileSorted(errors, 50);
             Console.WriteLine($"{coreId}: {s.Count} samples, 95 % range holds the true age for {share:P1}; median |age error| {medianError:0.0} yr, 95th percentile {Statistics.PercentileSorted(errors, 95):0.0} yr");
             Assert.True(medianError <= 80, $"{coreId}: median age error {medianError:0.0} yr");
-            if (coreId == site.VarveCoreId) Assert.True(share >= 0.9, $"{coreId}: coverage {share:P1}");
+            Assert.True(share >= 0.9, $"{coreId}: coverage {share:P1}");
         }
     }
 

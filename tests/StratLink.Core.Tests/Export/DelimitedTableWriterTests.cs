@@ -50,4 +50,18 @@ public class DelimitedTableWriterTests
         w.Number(1);
         Assert.Throws<InvalidOperationException>(w.EndRow);
     }
+
+    [Fact]
+    public void Infinities_and_flags_are_written_as_words()
+    {
+        // Common practice in numeric tables (numpy writes inf, R writes Inf); lower case as our analysis tables have it.
+        var sw = new StringWriter();
+        var w = new DelimitedTableWriter(sw, TableFormat.Csv);
+        w.Header(["period_yr", "tentative"]);
+        w.Number(double.PositiveInfinity).Bool(true);
+        w.EndRow();
+        w.Number(double.NegativeInfinity).Bool(false);
+        w.EndRow();
+        Assert.Equal("period_yr,tentative\ninf,true\n-inf,false\n", sw.ToString());
+    }
 }

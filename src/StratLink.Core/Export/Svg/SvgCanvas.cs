@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using System.Xml.Linq;
+using StratLink.ProjectIO;
 
 namespace StratLink.Export.Svg;
 
@@ -47,7 +48,7 @@ public sealed class SvgCanvas
     }
 
     /// <summary>Defines a diagonal hatch fill usable as <c>url(#id)</c>: grey lines on white, readable in print.</summary>
-    public string HatchPattern(string id, double spacing = 5, string stroke = "#555555")
+    public string HatchPattern(string id, double spacing = 5, string stroke = SvgStyle.DarkGrey)
     {
         _defs.Add(new XElement(Ns + "pattern",
             new XAttribute("id", id),
@@ -60,6 +61,29 @@ public sealed class SvgCanvas
                 new XAttribute("stroke", stroke), new XAttribute("stroke-width", "1"))));
         return $"url(#{id})";
     }
+
+    /// <summary>Defines a rectangular clip path; returns the value for a <c>clip-path</c> attribute.</summary>
+    public string ClipRect(string id, double x, double y, double width, double height)
+    {
+        _defs.Add(new XElement(Ns + "clipPath", new XAttribute("id", id),
+            new XElement(Ns + "rect", new XAttribute("x", Num(x)), new XAttribute("y", Num(y)), new XAttribute("width", Num(width)), new XAttribute("height", Num(height)))));
+        return $"url(#{id})";
+    }
+
+    /// <summary>
+    /// A legend key with its baseline at <paramref name="y"/>: a short line in the style, or a box when the style
+    /// fills, then the label. Returns where the next key of a row may start.
+    /// </summary>
+    public double Key(double x, double y, SvgStyle style, string label, XElement? parent = null, double swatchWidth = 24)
+    {
+        if (style.IsArea) Rect(x, y - 8, swatchWidth, 10, style, parent: parent);
+        else Line(x, y - 4, x + swatchWidth, y - 4, style, parent: parent);
+        Text(x + swatchWidth + 6, y, label, parent: parent);
+        return x + swatchWidth + 6 + TextWidth(label) + 24;
+    }
+
+    /// <summary>Rough width of a label at the default 11-pixel sans-serif font, for laying out legends.</summary>
+    public static double TextWidth(string text) => 6.2 * text.Length;
 
     public XElement Line(double x1, double y1, double x2, double y2, SvgStyle style, string? cssClass = null, string? id = null, XElement? parent = null) =>
         Add(new XElement(Ns + "line",
@@ -90,13 +114,15 @@ public sealed class SvgCanvas
 
     public XDocument ToDocument() => new(new XDeclaration("1.0", "utf-8", null), new XElement(_root));
 
-    /// <summary>Writes the drawing as UTF-8 XML, replacing the file atomically enough for outputs (write then move).</summary>
-    public void Save(string path)
+    /// <summary>The whole document as UTF-8 XML text, declaration first.</summary>
+    public string ToXml()
     {
-        string tmp = path + ".tmp";
-        ToDocument().Save(tmp);
-        File.Move(tmp, path, overwrite: true);
+        var doc = ToDocument();
+        return doc.Declaration + "\n" + doc.Root + "\n";
     }
+
+    /// <summary>Writes the drawing through <see cref="AtomicFile"/>, so a reader never sees half a figure.</summary>
+    public void Save(string path) => AtomicFile.WriteAllText(path, ToXml(), keepBackup: false);
 
     /// <summary>Coordinates with two decimals: a hundredth of a pixel, invariant culture.</summary>
     public static string Num(double v) => Math.Round(v, 2).ToString("0.##", CultureInfo.InvariantCulture);

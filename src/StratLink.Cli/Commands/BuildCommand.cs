@@ -1,0 +1,46 @@
+using System.CommandLine;
+using StratLink.Checks;
+using StratLink.Workflows;
+
+namespace StratLink.Cli.Commands;
+
+/// <summary>
+/// <c>stratlink build PROJECT --out DIR</c>: the whole pipeline, headless and reproducible; writes the
+/// tables, figures and run.json. Exit 0 when the build has no error findings, 1 when it has, 2 when
+/// the project cannot be read or has input errors.
+/// </summary>
+internal static class BuildCommand
+{
+    public static Command Create(CliContext ctx)
+    {
+        var project = ProjectArgument.Create();
+        var output = new Option<DirectoryInfo>("--out") { Description = "Folder for the outputs (created if missing).", Required = true };
+        var cmd = new Command("build", "Align the cores, model ages, build the composite and splice, check consistency; write tables, figures and run.json.")
+        {
+            project, output,
+        };
+        cmd.SetAction(parse =>
+        {
+            string path = parse.GetValue(project)!.FullName;
+            string dir = parse.GetValue(output)!.FullName;
+            var loaded = ProjectLoader.Load(path, ctx.Cancellation);
+            if (loaded.Problems.HasErrors)
+            {
+                foreach (var p in loaded.Problems.Where(p => p.Severity == Severity.Error)) ctx.Error.WriteLine(p.ToString());
+                ctx.Fail("the project has errors (above); nothing was built.");
+                return ExitCodes.Usage;
+            }
+            BuildResult result;
+            using (var progress = new ConsoleProgress(ctx))
+                result = BuildWorkflow.Run(loaded, progress, ctx.Cancellation);
+            var files = BuildWorkflow.WriteOutputs(result, dir);
+            ctx.Out.WriteLine($"Wrote {files.Count} files to {dir}:");
+            foreach (string f in files) ctx.Out.WriteLine("  " + f);
+            int errors = result.Findings.Count(f => f.Severity == Severity.Error);
+            int warnings = result.Findings.Count(f => f.Severity == Severity.Warning);
+            ctx.Out.WriteLine($"{errors} error(s), {warnings} warning(s) in checks.csv.");
+            return errors > 0 ? ExitCodes.Findings : ExitCodes.Success;
+        });
+        return cmd;
+    }
+}

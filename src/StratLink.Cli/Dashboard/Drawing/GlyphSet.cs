@@ -1,0 +1,54 @@
+namespace StratLink.Cli.Dashboard.Drawing;
+
+/// <summary>
+/// The characters the dashboard draws with: Unicode (braille dots, shading, box lines) when the
+/// terminal's locale is UTF-8, plain ASCII otherwise, so a C-locale SSH session still reads well.
+/// </summary>
+public sealed record GlyphSet
+{
+    public required bool Unicode { get; init; }
+
+    /// <summary>Ink of a curve cell in ASCII mode (Unicode mode uses braille patterns).</summary>
+    public required char CurveInk { get; init; }
+    public required string Gap { get; init; }
+    public required string Disturbed { get; init; }
+    public required string Band { get; init; }
+    public required string TieMark { get; init; }
+    public required string ControlMark { get; init; }
+    public required string ErrorBar { get; init; }
+    public required string Separator { get; init; }
+    public required string BarFull { get; init; }
+    public required string BarEmpty { get; init; }
+    public required string Up { get; init; }
+    public required string Down { get; init; }
+
+    public static readonly GlyphSet Utf8 = new()
+    {
+        Unicode = true, CurveInk = '*', Gap = "░", Disturbed = "▚", Band = "▒", TieMark = "◆",
+        ControlMark = "●", ErrorBar = "─", Separator = "│", BarFull = "█", BarEmpty = "░", Up = "↑", Down = "↓",
+    };
+
+    public static readonly GlyphSet Ascii = new()
+    {
+        Unicode = false, CurveInk = '*', Gap = ":", Disturbed = "~", Band = ".", TieMark = "#",
+        ControlMark = "o", ErrorBar = "-", Separator = "|", BarFull = "#", BarEmpty = "-", Up = "Up", Down = "Dn",
+    };
+
+    /// <summary>
+    /// UTF-8 when the effective character-type locale says so. POSIX precedence: LC_ALL, then
+    /// LC_CTYPE, then LANG; the first one set decides. Nothing set means the C locale (ASCII).
+    /// </summary>
+    public static GlyphSet FromLocale(Func<string, string?> getEnv)
+    {
+        foreach (string name in new[] { "LC_ALL", "LC_CTYPE", "LANG" })
+        {
+            string? value = getEnv(name);
+            if (string.IsNullOrEmpty(value)) continue;
+            return IsUtf8Locale(value) ? Utf8 : Ascii;
+        }
+        return Ascii;
+    }
+
+    public static bool IsUtf8Locale(string locale) =>
+        locale.Contains("UTF-8", StringComparison.OrdinalIgnoreCase) || locale.Contains("utf8", StringComparison.OrdinalIgnoreCase);
+}

@@ -1,0 +1,62 @@
+using StratLink.Cli.Dashboard.Drawing;
+using StratLink.Cli.Dashboard.Keys;
+
+namespace StratLink.Cli.Dashboard;
+
+/// <summary>The help screen: every key from the key table, grouped by where it works, then the legend and cautions.</summary>
+public static class HelpText
+{
+    public const string EventLayerCaution =
+        "Counts and recurrence of event layers (turbidites, flood beds) read from these ties are " +
+        "interpretations: they need review by qualified specialists and defer to local codes and " +
+        "practice. They are not a hazard assessment.";
+
+    public static IReadOnlyList<string> Lines(GlyphSet glyphs)
+    {
+        var lines = new List<string>();
+        void Section(string title, IEnumerable<KeyEntry> entries)
+        {
+            lines.Add("## " + title);
+            foreach (var e in entries) lines.Add($"  {e.KeysText,-18} {e.Help}");
+            lines.Add("");
+        }
+        Section("Everywhere", KeyTable.Entries.Where(e => e.Everywhere));
+        foreach (var screen in Screens.All)
+        {
+            var entries = KeyTable.Entries.Where(e => !e.Everywhere && e.AppliesTo(screen)).ToList();
+            if (entries.Count > 0) Section($"On the {screen.Title()} screen", entries);
+        }
+        lines.Add("## What the logs show");
+        lines.Add($"  {(glyphs.Unicode ? "⡇⠸ braille dots" : "* stars"),-18} the signal, min to max in each dot row");
+        lines.Add($"  {glyphs.Gap,-18} gap: no recovery, nothing known");
+        lines.Add($"  {glyphs.Disturbed,-18} disturbed: left out of alignment and splice");
+        lines.Add($"  {glyphs.TieMark,-18} a tie (marker layer) in this core; bright lines join it across logs");
+        lines.Add($"  {"thin grey lines",-18} the alignment: which depths correspond after the last run");
+        lines.Add($"  {(glyphs.Unicode ? "▶" : ">"),-18} the depth cursor; the active log's cursor row is highlighted");
+        lines.Add("");
+        lines.Add("## Saving");
+        lines.Add("  Every edit is written at once to a recovery file beside the project");
+        lines.Add("  (.NAME.recovery.yaml); the next start offers it back if the session was lost.");
+        lines.Add("  Saving replaces the project file atomically and keeps the old one as NAME.bak.");
+        lines.Add("");
+        lines.Add("## Caution");
+        foreach (string part in Wrap(EventLayerCaution, 76)) lines.Add("  " + part);
+        return lines;
+    }
+
+    private static IEnumerable<string> Wrap(string text, int width)
+    {
+        var line = new System.Text.StringBuilder();
+        foreach (string word in text.Split(' '))
+        {
+            if (line.Length > 0 && line.Length + 1 + word.Length > width)
+            {
+                yield return line.ToString();
+                line.Clear();
+            }
+            if (line.Length > 0) line.Append(' ');
+            line.Append(word);
+        }
+        if (line.Length > 0) yield return line.ToString();
+    }
+}

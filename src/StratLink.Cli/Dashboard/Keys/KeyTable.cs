@@ -1,0 +1,91 @@
+using Terminal.Gui.Drivers;
+using Terminal.Gui.Input;
+using static StratLink.Cli.Dashboard.Keys.KeyChord;
+
+namespace StratLink.Cli.Dashboard.Keys;
+
+/// <summary>
+/// The one table binding keys to commands. The key handler, the status line and the help screen
+/// all read it, so they cannot disagree. Esc, F5, F6, F10 and Ctrl+Z are left alone or bound
+/// harmlessly because the toolkit gives them meanings (quit, refresh, focus, menu, suspend).
+/// </summary>
+public static class KeyTable
+{
+    private static readonly Screen[] All = [];
+    private static readonly Screen[] Logs = [Screen.Logs];
+    private static readonly Screen[] Lists = [Screen.Ages, Screen.Findings];
+
+    public static readonly IReadOnlyList<KeyEntry> Entries =
+    [
+        new(DashCommand.Help, All, "Keys", "Show this list of keys", 1, [Special(KeyCode.F1, "F1"), Char('?')]),
+        new(DashCommand.ShowLogs, All, "Logs", "Logs: cores side by side, ties and alignment", 0, [Char('1')]),
+        new(DashCommand.ShowAges, All, "Ages", "Ages: age-depth model and the age controls", 0, [Char('2')]),
+        new(DashCommand.ShowComposite, All, "Composite", "Composite: the stacked records and the splice", 0, [Char('3')]),
+        new(DashCommand.ShowFindings, All, "Findings", "Findings: problems in the files and the checks", 0, [Char('4')]),
+        new(DashCommand.NextScreen, All, "Screen", "Next screen", 0, [Special(KeyCode.Tab, "Tab")]),
+        new(DashCommand.Back, All, "Back", "Clear the selected tie, or go back to the logs", 0, [Special(KeyCode.Esc, "Esc")]),
+        new(DashCommand.Run, All, "Run", "Run alignment, ages and composite in the background", 7, [Char('r')]),
+        new(DashCommand.StopRun, All, "Stop", "Stop the run (the previous results stay)", 13, [Char('x')]),
+        new(DashCommand.Undo, All, "Undo", "Undo the last edit", 6, [Char('u')]),
+        new(DashCommand.Redo, All, "Redo", "Redo the edit undone last", 12, [Char('U')]),
+        new(DashCommand.Save, All, "Save", "Save the project file (the old one is kept as .bak)", 8, [Char('s')]),
+        new(DashCommand.Export, All, "Export", "Export the result tables and figures to a folder", 0, [Char('e')]),
+        new(DashCommand.Quit, All, "Quit", "Quit (asks first when there are unsaved edits)", 9, [Char('q'), Special(KeyCode.Q | KeyCode.CtrlMask, "Ctrl+Q")]),
+
+        new(DashCommand.CursorUp, Logs, "Up", "Move the depth cursor up one row", 0, [Special(KeyCode.CursorUp, "Up")]),
+        new(DashCommand.CursorDown, Logs, "Down", "Move the depth cursor down one row", 0, [Special(KeyCode.CursorDown, "Down")]),
+        new(DashCommand.FineUp, Logs, "Fine up", "Move the depth cursor up a quarter row (one dot)", 0, [Special(KeyCode.CursorUp | KeyCode.ShiftMask, "Shift+Up")]),
+        new(DashCommand.FineDown, Logs, "Fine down", "Move the depth cursor down a quarter row (one dot)", 0, [Special(KeyCode.CursorDown | KeyCode.ShiftMask, "Shift+Down")]),
+        new(DashCommand.PageUp, Logs, "Page up", "Move the depth cursor up one screen", 0, [Special(KeyCode.PageUp, "PgUp")]),
+        new(DashCommand.PageDown, Logs, "Page down", "Move the depth cursor down one screen", 0, [Special(KeyCode.PageDown, "PgDn")]),
+        new(DashCommand.Top, Logs, "Top", "Go to the top of the core", 0, [Special(KeyCode.Home, "Home")]),
+        new(DashCommand.Bottom, Logs, "Bottom", "Go to the bottom of the core", 0, [Special(KeyCode.End, "End")]),
+        new(DashCommand.PreviousLog, Logs, "Left log", "Make the log on the left the active one", 0, [Special(KeyCode.CursorLeft, "Left")]),
+        new(DashCommand.NextLog, Logs, "Right log", "Make the log on the right the active one", 0, [Special(KeyCode.CursorRight, "Right")]),
+        new(DashCommand.ZoomIn, Logs, "Zoom in", "Zoom in (half the depth per row)", 0, [Char('+')]),
+        new(DashCommand.ZoomOut, Logs, "Zoom out", "Zoom out (twice the depth per row)", 0, [Char('-')]),
+        new(DashCommand.NextSignal, [Screen.Logs, Screen.Composite], "Signal", "Show the next signal", 0, [Char('v')]),
+        new(DashCommand.NextCore, Logs, "Core", "Show the next core in the active log", 0, [Char('c')]),
+        new(DashCommand.MoreLogs, Logs, "More logs", "Add a log (up to four)", 0, [Char('a')]),
+        new(DashCommand.FewerLogs, Logs, "Fewer logs", "Remove the active log (two stay)", 0, [Char('d')]),
+        new(DashCommand.LineUp, Logs, "Line up", "Move the other logs' cursors to the depth matching this one (by the alignment when it is current, else the same depth)", 0, [Char('=')]),
+        new(DashCommand.AddTie, Logs, "Tie", "Tie the cursor in this log to the cursor in the next log (extends the selected tie when it lacks one of the two cores)", 2, [Char('t')]),
+        new(DashCommand.NextTie, Logs, "Next tie", "Select the next tie below the cursor", 3, [Char(']')]),
+        new(DashCommand.PreviousTie, Logs, "Prev tie", "Select the previous tie above the cursor", 0, [Char('[')]),
+        new(DashCommand.MoveTie, Logs, "Move", "Move the selected tie to the cursor in this log", 4, [Char('m')]),
+        new(DashCommand.DeleteTie, Logs, "Delete", "Delete the selected tie", 5, [Special(KeyCode.Delete, "Del"), Special(KeyCode.Backspace, "Backspace")]),
+        new(DashCommand.RenameTie, Logs, "Name", "Rename the selected tie", 10, [Char('n')]),
+        new(DashCommand.TieKind, Logs, "Kind", "Set the kind of the selected tie (tephra, turbidite, flood, event, other)", 11, [Char('k')]),
+
+        new(DashCommand.ListUp, Lists, "Up", "Select the previous line", 0, [Special(KeyCode.CursorUp, "Up")]),
+        new(DashCommand.ListDown, Lists, "Down", "Select the next line", 0, [Special(KeyCode.CursorDown, "Down")]),
+        new(DashCommand.ListPageUp, Lists, "Page up", "Up one page", 0, [Special(KeyCode.PageUp, "PgUp")]),
+        new(DashCommand.ListPageDown, Lists, "Page down", "Down one page", 0, [Special(KeyCode.PageDown, "PgDn")]),
+        new(DashCommand.ToggleExclude, [Screen.Ages], "Exclude", "Leave the selected age control out of the age model, or take it back in", 2, [Special(KeyCode.Space, "Space")]),
+        new(DashCommand.ToggleAxis, [Screen.Composite], "Depth/age", "Plot the composite against composite depth or against age", 2, [Char('a')]),
+        new(DashCommand.GoToFinding, [Screen.Findings], "Go to", "Show the place of the selected finding in the logs", 2, [Special(KeyCode.Enter, "Enter")]),
+    ];
+
+    /// <summary>The command <paramref name="key"/> means on <paramref name="screen"/>; screen-specific rows win over global ones.</summary>
+    public static KeyEntry? Find(Key key, Screen screen) =>
+        Entries.FirstOrDefault(e => !e.Everywhere && e.AppliesTo(screen) && e.Keys.Any(k => k.Matches(key)))
+        ?? Entries.FirstOrDefault(e => e.Everywhere && e.Keys.Any(k => k.Matches(key)));
+
+    public static KeyEntry Entry(DashCommand command) => Entries.First(e => e.Command == command);
+
+    /// <summary>The status line for a screen: as many "key label" items as fit in <paramref name="width"/>.</summary>
+    public static string StatusLine(Screen screen, int width)
+    {
+        var items = Entries.Where(e => e.StatusOrder > 0 && e.AppliesTo(screen)).OrderBy(e => e.StatusOrder)
+            .Select(e => $"{e.Keys[0].Label} {e.Label}");
+        var text = new System.Text.StringBuilder();
+        foreach (string item in items)
+        {
+            int needed = text.Length == 0 ? item.Length : item.Length + 2;
+            if (text.Length + needed > width) break;
+            if (text.Length > 0) text.Append("  ");
+            text.Append(item);
+        }
+        return text.ToString();
+    }
+}

@@ -1,0 +1,175 @@
+using StratLink.Quantities;
+using System.Globalization;
+using StratLink.Cli.Dashboard.Drawing;
+using StratLink.Cli.Dashboard.Results;
+using StratLink.Model;
+
+namespace StratLink.Cli.Dashboard.Views;
+
+/// <summary>
+/// The age-depth model on composite depth with its 95 % band and the controls with their error
+/// bars, above (or, on wide screens, beside) the list of controls with their calibrated ranges.
+/// </summary>
+public sealed class AgesView : DashView
+{
+    private readonly DashboardState _state;
+
+    public AgesView(DashboardState state, GlyphSet glyphs) : base(glyphs) => _state = state;
+
+    public ListSelection Selection { get; } = new();
+
+    public AgeControlSpec? SelectedControl =>
+        _state.Project.Ages.Count == 0 ? null : _state.Project.Ages[Math.Clamp(Selection.Selected, 0, _state.Project.Ages.Count - 1)];
+
+    public void Move(int delta)
+    {
+        Selection.Move(delta, _state.Project.Ages.Count);
+        SetNeedsDraw();
+    }
+
+    public int PageSize => Math.Max(1, ListArea().Height - 2);
+
+    private System.Drawing.Rectangle PlotArea()
+    {
+        var vp = Viewport;
+        return vp.Width >= 120
+            ? new System.Drawing.Rectangle(0, 0, vp.Width / 2, vp.Height)
+            : new System.Drawing.Rectangle(0, 0, vp.Width, vp.Height / 2);
+    }
+
+    private System.Drawing.Rectangle ListArea()
+    {
+        var vp = Viewport;
+        return vp.Width >= 120
+            ? new System.Drawing.Rectangle(vp.Width / 2 + 1, 0, vp.Width - vp.Width / 2 - 1, vp.Height)
+            : new System.Drawing.Rectangle(0, vp.Height / 2, vp.Width, vp.Height - vp.Height / 2);
+    }
+
+    protected override bool OnDrawingContent(Terminal.Gui.ViewBase.DrawContext? context)
+    {
+        var pal = Colors;
+        ClearViewport(pal.Normal);
+        DrawPlot(PlotArea(), pal);
+        DrawList(ListArea(), pal);
+        return true;
+    }
+
+    private void DrawPlot(System.Drawing.Rectangle area, Palette pal)
+    {
+        string unit = _state.Project.DepthUnit.Symbol();
+        Put(area.X, area.Y, Fit($" Age model: age (cal BP) across, composite depth ({unit}) down", area.Width), pal.Header);
+        var results = _state.Results;
+        if (results?.Ages is not { } curve)
+        {
+            string why = results is null ? "Age model not run yet (r runs alignment, ages and composite)."
+                : results.Skipped.FirstOrDefault(s => s.StartsWith("ages", StringComparison.Ordinal)) ?? "This run gave no age model.";
+            Put(area.X + 2, area.Y + 2, why, pal.Dim, area.Width - 2);
+            return;
+        }
+        const int axis = 7;
+        int rows = area.Height - 2, cols = area.Width - axis - 1;
+        if (rows < 2 || cols < 4) return;
+        double top = curve.TopCompositeDepth, bottom = curve.BottomCompositeDepth;
+        double dotDepth = (bottom - top) / (rows * 4);
+        var median = new double[rows * 4];
+        var lo = new double[rows * 4];
+        var hi = new double[rows * 4];
+        double ageMin = double.PositiveInfinity, ageMax = double.NegativeInfinity;
+        for (int y = 0; y < median.Length; y++)
+        {
+            var (m, l, h) = curve.Scale.AgeAt(_state.Project.CompositeDepthOf(top + (y + 0.5) * dotDepth));
+            (median[y], lo[y], hi[y]) = (m, l, h);
+            ageMin = Math.Min(ageMin, l);
+            ageMax = Math.Max(ageMax, h);
+        }
+        foreach (var c in results.Controls)
+        {
+            ageMin = Math.Min(ageMin, c.AgeLoBP);
+            ageMax = Math.Max(ageMax, c.AgeHiBP);
+        }
+        if (!(ageMax > ageMin)) ageMax = ageMin + 1;
+        int plotLeft = area.X + axis;
+        int Col(double age) => Math.Clamp((int)Math.Round((age - ageMin) / (ageMax - ageMin) * (cols - 1)), 0, cols - 1);
+
+        for (int r = 0; r < rows; r++)
+        {
+            double l = double.PositiveInfinity, h = double.NegativeInfinity;
+            for (int k = 0; k < 4; k++) { l = Math.Min(l, lo[r * 4 + k]); h = Math.Max(h, hi[r * 4 + k]); }
+            int c0 = Col(l), c1 = Col(h);
+            Fill(plotLeft + c0, area.Y + 1 + r, c1 - c0 + 1, Glyphs.Band, pal.Band);
+            if (r % 4 == 0) Put(area.X, area.Y + 1 + r, FormatNumber(top + r * 4 * dotDepth).PadLeft(6)[^6..], pal.Dim);
+        }
+        var canvas = new DotCanvas(cols, rows);
+        CurvePlotter.DrawProfile(canvas, median, ageMin, ageMax);
+        PutCanvas(plotLeft, area.Y + 1, canvas, pal.Curve);
+
+        foreach (var c in results.Controls)
+        {
+            if (c.CompositeDepth is not double d || d < top || d > bottom) continue;
+            int r = Math.Clamp((int)((d - top) / (dotDepth * 4)), 0, rows - 1);
+            bool excluded = _state.Project.Ages.FirstOrDefault(a => a.Id == c.Id)?.Exclude ?? false;
+            var attr = excluded ? pal.Dim : pal.Tie;
+            Fill(plotLeft + Col(c.AgeLoBP), area.Y + 1 + r, Col(c.AgeHiBP) - Col(c.AgeLoBP) + 1, Glyphs.ErrorBar, attr);
+            Put(plotLeft + Col(c.AgeMedianBP), area.Y + 1 + r, Glyphs.ControlMark, attr);
+        }
+        string axisText = $"{FormatNumber(ageMin)} cal BP";
+        string right = $"{FormatNumber(ageMax)} cal BP";
+        Put(plotLeft, area.Y + area.Height - 1, axisText, pal.Dim);
+        Put(plotLeft + Math.Max(axisText.Length + 1, cols - right.Length), area.Y + area.Height - 1, right, pal.Dim);
+    }
+
+    private void DrawList(System.Drawing.Rectangle area, Palette pal)
+    {
+        var ages = _state.Project.Ages;
+        Put(area.X, area.Y, Fit(" " + ListHeader(), area.Width), pal.Header);
+        if (ages.Count == 0)
+        {
+            Put(area.X + 2, area.Y + 2, "The project has no age controls.", pal.Dim, area.Width - 2);
+            return;
+        }
+        int rows = area.Height - 1;
+        Selection.Fit(ages.Count, rows);
+        for (int i = 0; i < rows && Selection.First + i < ages.Count; i++)
+        {
+            int index = Selection.First + i;
+            var a = ages[index];
+            string line = ListLine(a, _state.Results?.Controls.FirstOrDefault(c => c.Id == a.Id));
+            var attr = index == Selection.Selected ? pal.CursorRow : a.Exclude ? pal.Dim : pal.Normal;
+            Put(area.X, area.Y + 1 + i, Fit(" " + line, area.Width), attr);
+        }
+    }
+
+    /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
+    public static string ListHeader() => $"{"use",-3} {"control",-11} {"kind",-11} {"where",-14} {"given",-17} {"95% cal BP",-15} flags";
+
+    public string ListLine(AgeControlSpec a, ControlOutcome? outcome)
+    {
+        string where = a switch
+        {
+            CalendarAgeControl { Marker: string m } => "at " + m,
+            CalendarAgeControl c => $"{c.Core} {FormatDepth(c.Depth)}",
+            RadiocarbonAgeControl r => $"{r.Core} {FormatDepth(r.Depth)}",
+            VarveCountControl v => $"{v.Core} from {FormatDepth(v.AnchorDepth)}",
+            _ => "",
+        };
+        string given = a switch
+        {
+            CalendarAgeControl c => $"{FormatNumber(c.Age.YearsBP)}±{FormatNumber(c.Error)} cal BP",
+            RadiocarbonAgeControl r => $"{FormatNumber(r.C14Age.Years)}±{FormatNumber(r.C14Error)} 14C",
+            VarveCountControl v => $"count from {FormatNumber(v.AnchorAge.YearsBP)}",
+            _ => "",
+        };
+        string range = outcome is null
+            ? (_state.Results is null ? "not run yet" : "-")
+            : $"{FormatNumber(outcome.AgeLoBP)}-{FormatNumber(outcome.AgeHiBP)}";
+        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 11),-11} {Cut(a.KindName, 11),-11} {Cut(where, 14),-14} {Cut(given, 17),-17} {Cut(range, 15),-15} {outcome?.Flags}";
+    }
+
+    private string FormatDepth(Quantities.CoreDepth? d) =>
+        d is { } v ? FormatNumber(v.In(_state.Project.DepthUnit)) : "?";
+
+    private static string FormatNumber(double v) =>
+        v.ToString(Math.Abs(v) >= 100 ? "0" : "0.##", CultureInfo.InvariantCulture);
+
+    private static string Cut(string s, int n) => s.Length > n ? s[..n] : s;
+}

@@ -1,0 +1,68 @@
+using StratLink.AgeModelling;
+using StratLink.Alignment;
+using StratLink.Checks;
+using StratLink.Compositing;
+using StratLink.Export;
+
+namespace StratLink.Workflows;
+
+/// <summary>
+/// The pipeline behind <c>stratlink build</c> and the dashboard's run: align every core to the
+/// reference, model ages on composite depth, build the composite and splice, check consistency.
+/// It works on one snapshot and returns only when every stage is complete, so a cancelled run
+/// leaves the caller's previous results untouched.
+/// </summary>
+public static class BuildWorkflow
+{
+    // Shares of the progress bar; alignment with its ensembles dominates the run time.
+    private static readonly (string Stage, double Share)[] Stages =
+        [("alignment", 0.45), ("ages", 0.25), ("composite", 0.15), ("checks", 0.15)];
+
+    public static BuildResult Run(LoadedProject project, IProgress<WorkProgress>? progress, CancellationToken ct)
+    {
+        if (project.Problems.HasErrors)
+            throw new InvalidOperationException("The project has errors; 'stratlink check' lists them. Fix them before a build.");
+        var alignment = CoreAligner.Align(project, Stage(progress, 0), ct);
+        var varveProblems = new FindingList();
+        var varves = VarveLayerLoader.Load(project, varveProblems, ct);
+        var ages = AgeModeller.Run(project, alignment, varves, Stage(progress, 1), ct);
+        var composite = CompositeBuilder.Build(project, alignment, ages.IsBuilt ? ages : null, Stage(progress, 2), ct);
+        var checks = ChecksFor(project, alignment, ages, Stage(progress, 3), ct);
+        progress?.Report(new WorkProgress("done", 1));
+
+        var findings = new List<Finding>();
+        findings.AddRange(project.Problems);
+        findings.AddRange(alignment.Findings);
+        findings.AddRange(varveProblems);
+        findings.AddRange(ages.Findings);
+        findings.AddRange(composite.Findings);
+        findings.AddRange(checks);
+        return new BuildResult(project, alignment, ages, composite, findings);
+    }
+
+    /// <summary>Writes every output of a build into <paramref name="directory"/>; returns the files written, relative to it.</summary>
+    public static IReadOnlyList<string> WriteOutputs(BuildResult result, string directory)
+    {
+        Directory.CreateDirectory(directory);
+        var files = new List<string>();
+        files.AddRange(CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
+        foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
+            files.Add(AgesCsvWriter.WriteFile(directory, series));
+        files.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
+        var relative = files.Select(f => Path.GetRelativePath(directory, f).Replace('\\', '/')).Order(StringComparer.Ordinal).ToList();
+        relative.Add("run.json");
+        RunManifest.Write(Path.Combine(directory, "run.json"), result.Project.Document, result.Project.Project, result.Methods, relative);
+        return relative;
+    }
+
+    private static IReadOnlyList<Finding> ChecksFor(LoadedProject project, AlignmentResult alignment, AgeModelResult ages,
+        IProgress<WorkProgress>? progress, CancellationToken ct) =>
+        ProjectChecks.Run(project, alignment, CheckWorkflow.Context(ages.IsBuilt ? ages : null, progress), ct);
+
+    private static ScaledProgress? Stage(IProgress<WorkProgress>? progress, int index)
+    {
+        if (progress is null) return null;
+        double start = Stages.Take(index).Sum(s => s.Share);
+        return new ScaledProgress(progress, Stages[index].Stage, start, Stages[index].Share);
+    }
+}

@@ -1,0 +1,128 @@
+using StratLink.Checks;
+using StratLink.Cli.Dashboard;
+using StratLink.Cli.Dashboard.Drawing;
+using Terminal.Gui.Input;
+using Xunit.Abstractions;
+
+namespace StratLink.Tests.Dashboard;
+
+[Collection("TerminalGui")]
+public sealed class CorrelationViewTests(ITestOutputHelper output)
+{
+    private static bool IsBraille(string g) => g.Length == 1 && g[0] is >= '\u2801' and <= '\u28FF';
+
+    [Fact]
+    public void Draws_two_logs_with_header_and_keys_at_80x24()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        output.WriteLine(h.ScreenText);
+        Assert.Contains("Testmere Basin", h.Row(0));
+        Assert.Contains("testmere.yaml", h.Row(0));
+        Assert.Contains("saved", h.Row(0));
+        Assert.Contains("not run yet", h.Row(0));
+        Assert.Contains("1 Logs", h.Row(1));
+        Assert.Contains("T-1 · ms", h.Row(2));
+        Assert.Contains("T-2 · ms", h.Row(2));
+        Assert.StartsWith(" F1 Keys", h.Row(23));
+        Assert.Contains("q Quit", h.Row(23));
+        // The plot area of the first log (columns 7..36, rows 3..20) holds braille curve cells.
+        int curveCells = Enumerable.Range(3, 18).Sum(r => Enumerable.Range(7, 30).Count(c => IsBraille(h.Cell(r, c))));
+        Assert.True(curveCells > 30, $"only {curveCells} braille cells in the first log");
+        // Readout row: cursor depth and value.
+        Assert.Contains("0.00 cm", h.Row(21));
+    }
+
+    [Fact]
+    public void Gaps_disturbed_intervals_and_ties_are_marked()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        // 20 cm per row (200 cm core in 18 rows, next 1-2-5 step): T-2's gap 80-85 cm is plot row 4 (screen row 7),
+        // T-1's disturbed 0-4 cm is plot row 0 (screen row 3).
+        Assert.Equal(20, h.Window.Logs.DepthPerRow);
+        Assert.Contains("░", h.Row(7)[43..]);
+        Assert.Contains("▚", h.Row(3)[..37]);
+        // ash-1 at 50 cm in T-1: row 2 (screen 5); tie mark in the axis column 6.
+        Assert.Equal("◆", h.Cell(5, 6));
+        // The tie line crosses the gutter (columns 37..42) between the logs on that row.
+        Assert.Contains(Enumerable.Range(37, 6), c => IsBraille(h.Cell(5, c)));
+    }
+
+    [Fact]
+    public void Wide_screen_shows_every_core()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project, 160, 48);
+        output.WriteLine(h.ScreenText);
+        Assert.Equal(3, h.Window.Logs.Slots.Count);
+        Assert.Contains("T-3 · ms", h.Row(2));
+        Assert.Contains("not run yet", h.Row(0));
+    }
+
+    [Fact]
+    public void Plain_ascii_is_drawn_when_the_terminal_is_not_utf8()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project, glyphs: GlyphSet.Ascii);
+        string screen = h.ScreenText;
+        output.WriteLine(screen);
+        Assert.DoesNotContain(screen, ch => ch > '\u007f');
+        Assert.Contains("*", h.Row(5));
+        Assert.Equal("#", h.Cell(5, 6));
+    }
+
+    [Fact]
+    public void Cursor_scrolls_and_zooms_keep_it_on_screen()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        h.Press(Key.End);
+        var slot = h.Window.Logs.ActiveSlot!;
+        Assert.Equal(200, slot.Cursor);
+        h.Press(new Key('+'), new Key('+'));
+        Assert.Equal(5, h.Window.Logs.DepthPerRow);
+        int row = (int)Math.Floor((slot.Cursor - slot.Top) / h.Window.Logs.DepthPerRow);
+        Assert.InRange(row, 0, h.Window.Logs.PlotRows - 1);
+        Assert.Contains("200.00 cm", h.Row(21));
+        h.Press(Key.Home);
+        Assert.Equal(0, slot.Cursor);
+        Assert.Equal(0, slot.Top);
+    }
+
+    [Fact]
+    public void Alignment_lines_appear_after_a_run_and_line_up_uses_them()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        int Gutter() => Enumerable.Range(3, 18).Sum(r => Enumerable.Range(37, 6).Count(c => IsBraille(h.Cell(r, c))));
+        int before = Gutter();
+        h.State.SetResults(TestResults.Full(project.Loaded));
+        h.App.LayoutAndDraw();
+        Assert.True(Gutter() > before + 5, $"gutter cells {before} -> {Gutter()}");
+        Assert.Contains("results current", h.Row(0));
+
+        // T-1 at 110 cm is composite 110 cm, which is T-2 at 100 cm (composite = 1.1 x T-2 depth).
+        h.Window.Logs.SetCursor(110);
+        h.Press(new Key('='));
+        Assert.Equal(100, h.Window.Logs.Slots[1].Cursor, 6);
+    }
+
+    [Fact]
+    public void Enter_on_a_finding_shows_its_core_and_depth_in_the_logs()
+    {
+        using var project = new TestProject();
+        project.Loaded.Problems.Add(new Finding { Severity = Severity.Warning, Code = "test.place", Message = "look here", Core = "T-3", Depth = 82 });
+        using var h = new DashboardHarness(project);
+        h.Press(new Key('4'));
+        Assert.Equal(Screen.Findings, h.Window.Current);
+        Assert.Contains("T-3 82", h.ScreenText);
+        Assert.Contains("look here", h.ScreenText);
+        h.Press(Key.Enter);
+        Assert.Equal(Screen.Logs, h.Window.Current);
+        Assert.Equal("T-3", h.Window.Logs.ActiveSlot!.CoreId);
+        Assert.Equal(82, h.Window.Logs.ActiveSlot!.Cursor);
+        Assert.Contains("T-3 · ms", h.Row(2));
+        Assert.Contains("82.00 cm", h.ScreenText);
+    }
+}

@@ -1,0 +1,59 @@
+using Terminal.Gui.Input;
+using Xunit.Abstractions;
+
+namespace StratLink.Tests.Dashboard;
+
+[Collection("TerminalGui")]
+public sealed class ResultViewsTests(ITestOutputHelper output)
+{
+    [Fact]
+    public void Ages_screen_draws_the_band_the_curve_and_the_controls()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        h.State.SetResults(TestResults.Full(project.Loaded));
+        h.Type("2");
+        output.WriteLine(h.ScreenText);
+        string screen = h.ScreenText;
+        Assert.Contains("Age model", h.Row(2));
+        Assert.Contains("▒", screen);
+        Assert.Contains("●", screen);
+        Assert.Contains(screen, ch => ch is >= '\u2801' and <= '\u28FF');
+        // Control list: calibrated 95 % range from the run.
+        Assert.Contains("1160-1240", screen);
+        // The age axis starts at the youngest 95 % bound: the coring-year control's -70 cal BP.
+        Assert.Contains("-70 cal BP", screen);
+    }
+
+    [Fact]
+    public void Composite_screen_draws_band_splice_strip_and_switches_to_age()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        h.Type("3");
+        Assert.Contains("Composite not run yet", h.ScreenText);
+        h.State.SetResults(TestResults.Full(project.Loaded));
+        h.App.LayoutAndDraw();
+        output.WriteLine(h.ScreenText);
+        string screen = h.ScreenText;
+        Assert.Contains("against composite depth (cm)", h.Row(2));
+        Assert.Contains("splice: A=T-1 B=T-2", screen);
+        Assert.Equal("A", h.Cell(3, 7));
+        Assert.Equal("B", h.Cell(3 + 13, 7));
+        Assert.Contains("Cycles and regime shifts: not analysed in this run.", screen);
+        h.Type("a");
+        Assert.Contains("against age (cal BP)", h.Row(2));
+    }
+
+    [Fact]
+    public void Findings_screen_lists_file_problems_with_their_place()
+    {
+        using var project = new TestProject();
+        project.Loaded.Problems.AddWarning("project.test", "a test warning", project.FilePath, 12, "markers");
+        using var h = new DashboardHarness(project);
+        h.Type("4");
+        Assert.Contains("testmere.yaml:12", h.ScreenText);
+        h.Press(Key.Enter);
+        Assert.Contains("no place in the logs", h.Row(22));
+    }
+}

@@ -1,0 +1,40 @@
+using StratLink.Model;
+using StratLink.ProjectIO;
+
+namespace StratLink.Tests.ProjectIO;
+
+/// <summary>The optional <c>age_model.rate_variability</c> key: default, round trip, bad values.</summary>
+public sealed class AgeModelSectionTests
+{
+    private const string Head = "format: stratlink-project/1\ndepth_unit: cm\ncores:\n  - id: A\n    table: a.csv\nage_model:\n  iterations: 100\n";
+
+    [Fact]
+    public void Default_is_not_written_and_other_values_round_trip()
+    {
+        var plain = ProjectReader.Parse(Head, "p.yaml");
+        Assert.Empty(plain.Problems);
+        Assert.Equal(AgeModelSettings.DefaultRateVariability, plain.Project!.AgeModel.RateVariability);
+        Assert.DoesNotContain("rate_variability", ProjectWriter.ToYaml(plain.Project));
+
+        foreach (double v in new[] { 0, 0.35 })
+        {
+            var doc = ProjectReader.Parse(Head + $"  rate_variability: {v.ToString(System.Globalization.CultureInfo.InvariantCulture)}\n", "p.yaml");
+            Assert.Empty(doc.Problems);
+            Assert.Equal(v, doc.Project!.AgeModel.RateVariability);
+            string text = ProjectWriter.ToYaml(doc.Project);
+            Assert.Contains("rate_variability", text);
+            var again = ProjectReader.Parse(text, "p.yaml");
+            Assert.Empty(again.Problems);
+            Assert.Equal(v, again.Project!.AgeModel.RateVariability);
+        }
+    }
+
+    [Fact]
+    public void Negative_variability_names_its_line()
+    {
+        var problems = ProjectReader.Parse(Head + "  rate_variability: -0.5\n", "p.yaml").Problems;
+        var f = Assert.Single(problems, f => f.Code == ProjectCodes.InvalidValue);
+        Assert.Equal(8, f.Line);
+        Assert.Contains("rate_variability", f.Field);
+    }
+}
