@@ -1,4 +1,3 @@
-using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Tests.TestSupport;
 using StratLink.Workflows;
@@ -13,11 +12,9 @@ public sealed class DemoProjectChecksTests(ITestOutputHelper output)
     public void DemoProjectPassesTheChecksWithoutErrors()
     {
         var project = ProjectLoader.Load(Path.Combine(RepoPaths.DemoDirectory, "mirrowick-fjord.stratlink.yaml"));
-        Assert.False(project.Problems.HasErrors, string.Join("\n", project.Problems));
-        var alignment = CoreAligner.Align(project, null, CancellationToken.None);
-        var ctx = new CheckContext { Aligner = (p, ct) => CoreAligner.Align(p, null, ct) };
 
-        var findings = ProjectChecks.Run(project, alignment, ctx, CancellationToken.None);
+        // What `stratlink check` shows: the loader's problems, the alignment's findings and the checks.
+        var findings = CheckWorkflow.Run(project, null, CancellationToken.None);
 
         foreach (var f in findings) output.WriteLine(f.ToString());
         Assert.DoesNotContain(findings, f => f.Severity == Severity.Error);
