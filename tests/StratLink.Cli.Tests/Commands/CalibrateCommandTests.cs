@@ -1,29 +1,16 @@
 using System.Globalization;
 using System.Text.Json;
 using StratLink.Cli;
+using StratLink.Tests.TestSupport;
 
 namespace StratLink.Tests.Commands;
 
 public class CalibrateCommandTests
 {
     /// <summary>IntCal20 (Reimer et al. 2020) from ../shared/data beside the repository root; missing data fails loudly.</summary>
-    private static string IntCal20()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "StratLink.sln"))) dir = dir.Parent;
-        if (dir is null) throw new InvalidOperationException("StratLink.sln not found above the test assembly.");
-        string path = Path.GetFullPath(Path.Combine(dir.FullName, "..", "shared", "data", "calibration-curves", "intcal20.14c"));
-        if (!File.Exists(path)) throw new FileNotFoundException($"Shared open data missing: {path}", path);
-        return path;
-    }
+    private static string IntCal20() => RepoPaths.Data("calibration-curves", "intcal20.14c");
 
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var stdout = new StringWriter();
-        var stderr = new StringWriter();
-        int code = CliApp.Run(args, stdout, stderr, stderrIsTerminal: false);
-        return (code, stdout.ToString(), stderr.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => CliRunner.Run(args);
 
     [Fact]
     public void JsonAndCsvForScripts()

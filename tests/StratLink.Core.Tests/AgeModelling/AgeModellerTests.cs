@@ -301,7 +301,7 @@ public class AgeModellerTests
         var result = Run(project, Aligned(Affine("R", 1, 0)));
         var sw = new StringWriter();
         AgesCsvWriter.Write(sw, result.Cores["R"]);
-        Assert.Equal("depth_cm,age_median_bp,age_lo_bp,age_hi_bp\n0.5,-55.0,-55.0,-55.0\n10.25,42.5,42.5,42.5\n99.5,935.0,935.0,935.0\n", sw.ToString());
+        Assert.Equal("depth_cm,age_median_bp,age_lo_bp,age_hi_bp\n0.5,-55,-55,-55\n10.25,42.5,42.5,42.5\n99.5,935,935,935\n", sw.ToString());
         Assert.Equal("ages-R.csv", AgesCsvWriter.FileName("R"));
     }
 }
