@@ -6,7 +6,12 @@ namespace StratLink.Checks;
 
 /// <summary>
 /// Loop closure with three or more cores: align once with each core as the reference, then compare the
-/// direct mapping A to C with A to B to C at A's samples (where both stay inside the cores). Consistent
+/// direct mapping A to C with A to B to C at A's samples. Only the part of A that B and C overlap is
+/// compared, taken from the alignment with A as the reference (where B and C map onto the stretch of A
+/// they cover), less one grid step at each end; and points where a mapping's local rate ratio departs
+/// from its overall ratio by more than <see cref="CheckSettings.RateJumpFactor"/> are skipped: that is how
+/// a mapping looks where it runs off the end of the shorter core (squeezed onto the reference's end, or
+/// stretched along it), where there is nothing to compare. Consistent
 /// alignments close the loop; the worst mismatch and where it is are reported, as a warning when it
 /// exceeds <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over
 /// markers, at least one grid step of C), else as a note.
@@ -52,21 +57,24 @@ internal static class LoopClosureCheck
             var ta = loaded.Tables[a];
             var spec = p.FindCore(a)!;
             int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
+            double stepA = AlignmentRuns.GridStep(p, ta);
+            double factor = p.Checks.RateJumpFactor;
             foreach (string b in cores.Where(b => b != a))
             {
                 foreach (string c in cores.Where(c => c != a && c != b))
                 {
                     if (!maps[b].TryGetValue(a, out var ab) || !maps[c].TryGetValue(a, out var ac) || !maps[c].TryGetValue(b, out var bc)) continue;
-                    var tb = loaded.Tables[b];
-                    var tc = loaded.Tables[c];
+                    if (Overlap(maps[a], b, loaded) is not { } inAofB || Overlap(maps[a], c, loaded) is not { } inAofC) continue;
+                    double lo = Math.Max(inAofB.Lo, inAofC.Lo) + stepA, hi = Math.Min(inAofB.Hi, inAofC.Hi) - stepA;
                     for (int k = 0; k < ta.Count; k += stride)
                     {
                         double z = ta.Depths[k];
-                        if (spec.IsUnusable(z)) continue;
+                        if (z < lo || z > hi || spec.IsUnusable(z)) continue;
                         double inB = ab.Median.ToCompositeValue(z);
+                        if (!Regular(ab.Median, z, loaded.Tables[a], factor) || !Regular(ac.Median, z, loaded.Tables[a], factor)
+                            || !Regular(bc.Median, inB, loaded.Tables[b], factor)) continue;
                         double direct = ac.Median.ToCompositeValue(z);
                         double via = bc.Median.ToCompositeValue(inB);
-                        if (!Inside(tb.Depths, inB) || !Inside(tc.Depths, direct) || !Inside(tc.Depths, via)) continue;
                         double mismatch = Math.Abs(direct - via);
                         if (worst is null || mismatch > worst.Value.Mismatch) worst = (mismatch, a, b, c, z, direct, via);
                     }
@@ -88,5 +96,19 @@ internal static class LoopClosureCheck
             w.A, $"{w.A}/{w.B}/{w.C}", w.Z, $"cores[{w.A}]");
     }
 
-    private static bool Inside(double[] sortedDepths, double d) => d >= sortedDepths[0] && d <= sortedDepths[^1];
+    /// <summary>True when the mapping's rate ratio at <paramref name="depth"/> is within a factor of its ratio over the whole core.</summary>
+    private static bool Regular(DepthMapping m, double depth, Tables.CoreTable core, double factor)
+    {
+        double overall = (m.ToCompositeValue(core.Depths[^1]) - m.ToCompositeValue(core.Depths[0])) / (core.Depths[^1] - core.Depths[0]);
+        double local = m.RateRatioAt(depth);
+        return overall > 0 && local * factor >= overall && local <= overall * factor;
+    }
+
+    /// <summary>The stretch of the reference core that core <paramref name="other"/> covers in an alignment to that reference.</summary>
+    private static (double Lo, double Hi)? Overlap(IReadOnlyDictionary<string, MappingEnsemble> toReference, string other, LoadedProject loaded)
+    {
+        if (!toReference.TryGetValue(other, out var e)) return null;
+        var t = loaded.Tables[other];
+        return (e.Median.ToCompositeValue(t.Depths[0]), e.Median.ToCompositeValue(t.Depths[^1]));
+    }
 }

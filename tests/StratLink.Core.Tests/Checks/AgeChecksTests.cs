@@ -8,8 +8,15 @@ using static StratLink.Tests.Checks.CheckFixtures;
 
 namespace StratLink.Tests.Checks;
 
-public sealed class AgeChecksTests
+public sealed class AgeChecksTests : IDisposable
 {
+    private readonly List<string> _written = [];
+
+    public void Dispose()
+    {
+        foreach (string f in _written) File.Delete(f);
+    }
+
     private static string IntCal20 => Path.Combine(RepoPaths.SharedData, "calibration-curves", "intcal20.14c");
 
     [Fact]
@@ -193,12 +200,13 @@ public sealed class AgeChecksTests
     }
 
     /// <summary>Writes a file in the folder of the test project file and returns its absolute path.</summary>
-    private static string WriteBesideProject(string name, string text)
+    private string WriteBesideProject(string name, string text)
     {
         string dir = Path.GetDirectoryName(ProjectPath)!;
         Directory.CreateDirectory(dir);
         string path = Path.Combine(dir, Guid.NewGuid().ToString("N") + "-" + name);
         File.WriteAllText(path, text);
+        _written.Add(path);
         return path;
     }
 
