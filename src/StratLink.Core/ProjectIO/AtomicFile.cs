@@ -38,11 +38,48 @@ public static class AtomicFile
                 File.Move(tempBackup, full + ".bak", overwrite: true);
             }
             File.Move(temp, full, overwrite: true);
+            RemoveStaleTemporaries(dir, Path.GetFileName(full));
         }
         finally
         {
             if (File.Exists(temp)) File.Delete(temp);
             if (File.Exists(tempBackup)) File.Delete(tempBackup);
+        }
+    }
+
+    /// <summary>
+    /// A save killed half-way leaves its temporary file behind (the target itself is intact); the next
+    /// successful save of the same file removes such leftovers. Only files of processes that are gone
+    /// are removed, so two programs saving the same file never delete each other's work in flight.
+    /// </summary>
+    private static void RemoveStaleTemporaries(string dir, string name)
+    {
+        foreach (string file in Directory.EnumerateFiles(dir, $".{name}.*.tmp*"))
+        {
+            string rest = Path.GetFileName(file)[(name.Length + 2)..];
+            int dot = rest.IndexOf('.');
+            if (dot <= 0 || !int.TryParse(rest[..dot], out int pid) || IsAlive(pid)) continue;
+            try { File.Delete(file); }
+            catch (IOException) { }
+            catch (UnauthorizedAccessException) { }
+        }
+    }
+
+    private static bool IsAlive(int pid)
+    {
+        if (pid == Environment.ProcessId) return false;
+        try
+        {
+            using var p = System.Diagnostics.Process.GetProcessById(pid);
+            return !p.HasExited;
+        }
+        catch (ArgumentException)
+        {
+            return false;
+        }
+        catch (InvalidOperationException)
+        {
+            return false;
         }
     }
 }

@@ -63,6 +63,10 @@ public sealed class NoLostWorkTests(ITestOutputHelper output)
             }
             int leftovers = Directory.GetFiles(dir, ".*.tmp*").Length;
             output.WriteLine($"{Kills} kills: target held version A {sawA} times, version B {sawB} times; {leftovers} temporary files left by killed saves.");
+
+            // The next complete save cleans up what the killed ones left (their processes are gone).
+            ProjectWriter.Save(ProjectReader.Load(target).Project!, target);
+            Assert.Empty(Directory.GetFiles(dir, ".*.tmp*"));
         }
         finally
         {
