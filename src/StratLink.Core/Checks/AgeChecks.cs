@@ -24,7 +24,7 @@ internal static class AgeChecks
         }
         Calibrations(r, radiocarbon);
         Varves(r, levels, new VarveChronology(loaded, ct));
-        MarkerControls(r, levels);
+        MarkerControls(r, loaded, levels, alignment);
     }
 
     private static void ReversalsWithinCores(CheckReporter r, List<DatedLevel> levels)
@@ -144,9 +144,11 @@ internal static class AgeChecks
     /// <summary>
     /// A calendar age on a marker applies in every core holding the marker. If no core holds it, it dates
     /// nothing (error). A core that has age controls of its own but lacks the marker is noted: the user
-    /// dates that core and may have missed the layer in it.
+    /// dates that core and may have missed the layer in it; with an alignment, only when the marker's
+    /// composite depth falls within that core's recovered interval (a layer below a short core's base
+    /// cannot be missing from it).
     /// </summary>
-    private static void MarkerControls(CheckReporter r, List<DatedLevel> levels)
+    private static void MarkerControls(CheckReporter r, LoadedProject loaded, List<DatedLevel> levels, AlignmentResult? alignment)
     {
         var p = r.Project;
         var known = p.Cores.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
@@ -166,11 +168,25 @@ internal static class AgeChecks
             foreach (string core in p.Cores.Select(x => x.Id).Where(id => !holding.Contains(id)))
             {
                 var own = levels.Where(l => l.Core == core && l.Control != c).Select(l => l.Control.Id).Distinct().ToList();
-                if (own.Count == 0) continue;
+                if (own.Count == 0 || !CouldHold(loaded, alignment, core, marker)) continue;
                 r.Add(Severity.Note, CheckCodes.AgeMarkerAbsent,
                     $"Core {core} is dated ({string.Join(", ", own)}) but has no depth for marker {marker.Id}, so the age {c.Id} ({CheckReporter.Number(c.Age.YearsBP, "0")} cal BP) does not apply there. If {marker.Id} is seen in {core}, add its depth.",
                     core, c.Id, null, $"markers[{marker.Id}]");
             }
         }
+    }
+
+    private static bool CouldHold(LoadedProject loaded, AlignmentResult? alignment, string core, MarkerSpec marker)
+    {
+        if (alignment is null || !alignment.Mappings.TryGetValue(core, out var own) || !loaded.Tables.TryGetValue(core, out var table) || table.Count == 0)
+            return true;
+        var unit = loaded.Project.DepthUnit;
+        var placed = marker.Depths
+            .Where(d => alignment.Mappings.ContainsKey(d.CoreId))
+            .Select(d => alignment.Mappings[d.CoreId].Median.ToCompositeValue(d.Depth.In(unit)))
+            .ToList();
+        if (placed.Count == 0) return true;
+        double at = placed.Average();
+        return at >= own.Median.ToCompositeValue(table.Depths[0]) && at <= own.Median.ToCompositeValue(table.Depths[^1]);
     }
 }

@@ -191,6 +191,23 @@ public sealed class AgeChecksTests : IDisposable
     }
 
     [Fact]
+    public void A_marker_below_a_short_cores_base_is_not_missing_from_it()
+    {
+        // C is 0-20 cm on the composite scale; the ash lies at 40 cm, below C's base: nothing to note.
+        var p = Project(["A", "B", "C"], [Marker("ash", 0.5, ("A", 40), ("B", 40))], [
+            new CalendarAgeControl { Id = "ash-age", Marker = "ash", Age = CalendarAge.FromYearsBP(4310), Error = 25 },
+            Calendar("top", "C", 0, -60, 1),
+        ]);
+        var identity = new Dictionary<string, MappingEnsemble>();
+        foreach (string core in new[] { "A", "B", "C" }) identity[core] = new(DepthMapping.Identity(core, Unit, 0, 100), []);
+        var alignment = new AlignmentResult("A", "test", identity);
+        var lp = Load(p, Table("C", 0, 20));
+        Assert.DoesNotContain(Run(lp, alignment: alignment), f => f.Code == CheckCodes.AgeMarkerAbsent);
+        // Without an alignment the position is unknown, so the note stays.
+        Assert.Contains(Run(lp), f => f.Code == CheckCodes.AgeMarkerAbsent && f.Core == "C");
+    }
+
+    [Fact]
     public void ControlOutsideTheAgeModelIsReported()
     {
         var p = Project(["A"], ages: [Calendar("ok", "A", 10, 100, 10), Calendar("odd", "A", 50, 2000, 10)]);
