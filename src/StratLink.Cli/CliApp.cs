@@ -50,5 +50,6 @@ public static class CliApp
     [
         DemoCommand.Create(ctx),
         CalibrateCommand.Create(ctx),
+        PairCommand.Create(ctx),
     ];
 }
