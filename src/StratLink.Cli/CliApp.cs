@@ -53,6 +53,7 @@ public static class CliApp
         ExportCommand.Create(ctx),
         AnalyseCommand.Create(ctx),
         CalibrateCommand.Create(ctx),
+        PairCommand.Create(ctx),
         DemoCommand.Create(ctx),
     ];
 }

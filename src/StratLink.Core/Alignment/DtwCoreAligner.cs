@@ -34,10 +34,11 @@ public static class DtwCoreAligner
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
         int n = core.Count, m = reference.Count;
-        var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         var boxes = TieBoxes(core, reference, ties, findings);
         options = ResolveOpenEnds(options, boxes, n, m, unit);
         var centre = CentreLine(boxes, n, m, options, unit);
+        (core, reference) = StandardiseOverOverlap(core, reference, centre, options.RobustStandardise);
+        var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         double neutral = NeutralCost(cost, centre, n, m);
         cost = cost.WithNeutral(neutral);
         // Unmatched reference at an open end costs what matching it typically would, per unit of
@@ -190,6 +191,27 @@ public static class DtwCoreAligner
         if (o.OpenEnd != true || knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1, 0, ""));
         knots = knots.DistinctBy(k => k.CoreDepth).ToList();
         return TieNetwork.StraightLines("grid", unit, knots, 0, n - 1);
+    }
+
+    /// <summary>
+    /// Both records standardised again over the part they are expected to share: the reference over
+    /// the columns the straight-line-ties mapping reaches from the core, the core over the rows it maps
+    /// inside the reference. Each core was standardised over its own whole length, so a short core
+    /// (a freeze core of the top few hundred years) and a long reference would otherwise differ in
+    /// level and spread wherever the reference's long-term trend moves its whole-core mean away from
+    /// the shared interval's, and the path would slide to chase that offset.
+    /// </summary>
+    private static (PreparedSignals Core, PreparedSignals Reference) StandardiseOverOverlap(PreparedSignals core, PreparedSignals reference, DepthMapping centre, bool robust)
+    {
+        int n = core.Count, m = reference.Count;
+        double c0 = centre.ToCompositeValue(0), c1 = centre.ToCompositeValue(n - 1);
+        int j0 = Math.Clamp((int)Math.Floor(Math.Min(c0, c1)), 0, m - 1), j1 = Math.Clamp((int)Math.Ceiling(Math.Max(c0, c1)), 0, m - 1);
+        int i0 = 0, i1 = n - 1;
+        while (i0 < n - 1 && centre.ToCompositeValue(i0) < 0) i0++;
+        while (i1 > i0 && centre.ToCompositeValue(i1) > m - 1) i1--;
+        if (j0 > 0 || j1 < m - 1) reference = SignalPreparation.StandardiseOver(reference, j0, j1, robust);
+        if (i0 > 0 || i1 < n - 1) core = SignalPreparation.StandardiseOver(core, i0, i1, robust);
+        return (core, reference);
     }
 
     /// <summary>

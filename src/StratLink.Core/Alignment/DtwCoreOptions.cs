@@ -21,6 +21,9 @@ public sealed record DtwCoreOptions
     public double RatePenalty { get; init; }
     public int Seed { get; init; } = 42;
 
+    /// <summary>Signals are standardised robustly (median, MAD) rather than by mean and SD; used when both are rescaled over their overlap.</summary>
+    public bool RobustStandardise { get; init; }
+
     public static DtwCoreOptions From(AlignmentSettings s, int seed) => new()
     {
         Pattern = StepPattern.Parse(s.Pattern),
@@ -30,5 +33,6 @@ public sealed record DtwCoreOptions
         OpenEnd = s.OpenEnd,
         RatePenalty = s.RatePenalty,
         Seed = seed,
+        RobustStandardise = s.Standardise == StandardiseMethods.Robust,
     };
 }

@@ -110,11 +110,45 @@ public static class SignalPreparation
         return d;
     }
 
+    /// <summary>Fewest present values a standardisation window needs per signal; below it the whole-core scaling is kept.</summary>
+    internal const int MinStandardiseValues = 10;
+
+    /// <summary>
+    /// The same signals standardised again over grid rows first..last only (then applied to every row).
+    /// Standardisation is invariant to a prior positive affine scaling, so this equals standardising
+    /// the unscaled signal over that window. A signal with fewer than <see cref="MinStandardiseValues"/>
+    /// present values in the window keeps its whole-core scaling.
+    /// </summary>
+    public static PreparedSignals StandardiseOver(PreparedSignals p, int first, int last, bool robust)
+    {
+        first = Math.Max(0, first);
+        last = Math.Min(p.Count - 1, last);
+        int dims = p.Signals.Length;
+        var values = (double[])p.Values.Clone();
+        for (int k = 0; k < dims; k++)
+        {
+            var window = new List<double>(Math.Max(0, last - first + 1));
+            for (int r = first; r <= last; r++)
+                if (!double.IsNaN(values[r * dims + k])) window.Add(values[r * dims + k]);
+            if (window.Count < MinStandardiseValues) continue;
+            var (centre, scale) = Scaling(window.ToArray(), robust);
+            for (int r = 0; r < p.Count; r++) values[r * dims + k] = (values[r * dims + k] - centre) / scale;
+        }
+        return new PreparedSignals(p.CoreId, p.Top, p.Step, p.Count, p.Signals, values);
+    }
+
     /// <summary>z-score (mean, sample SD) or robust (median, 1.4826 x MAD, consistent with the SD for normal data).</summary>
     private static void Standardise(double[] v, bool robust)
     {
         var present = v.Where(x => !double.IsNaN(x)).ToArray();
         if (present.Length == 0) return;
+        var (centre, scale) = Scaling(present, robust);
+        for (int i = 0; i < v.Length; i++) v[i] = (v[i] - centre) / scale;
+    }
+
+    /// <summary>Centre and scale of present values (sorted in place when robust); a scale of 1 for a constant signal.</summary>
+    private static (double Centre, double Scale) Scaling(double[] present, bool robust)
+    {
         double centre, scale;
         if (robust)
         {
@@ -130,6 +164,6 @@ public static class SignalPreparation
             scale = present.Length > 1 ? Math.Sqrt(present.Sum(x => (x - centre) * (x - centre)) / (present.Length - 1)) : 0;
         }
         if (!(scale > 0)) scale = 1; // a constant signal carries no information; centring it is enough
-        for (int i = 0; i < v.Length; i++) v[i] = (v[i] - centre) / scale;
+        return (centre, scale);
     }
 }

@@ -12,18 +12,26 @@ namespace StratLink.Tests.Alignment;
 /// Alignment of the invented demo site against its hidden truth (the generator's true composite depth
 /// of every sample): dtw must at least halve the straight-line-ties error, and the ensemble's 95%
 /// band must hold the true composite depth at >= 90% of samples (a 95% band with some model misfit).
+/// Several generator seeds, so the result is not one lucky site; for the demo as shipped (seed 1,
+/// the default of <c>stratlink demo</c>) every core, the short freeze core included, must also be
+/// placed no worse by dtw than by straight lines between its ties.
 /// </summary>
 public class DemoSiteAlignmentTests(ITestOutputHelper output)
 {
-    [Fact]
-    public void Dtw_on_the_demo_site_beats_the_ties_baseline_and_its_band_holds_the_truth()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(4)]
+    public void Dtw_on_the_demo_site_beats_the_ties_baseline_and_its_band_holds_the_truth(int seed)
     {
-        var site = DemoSiteGenerator.Generate(1);
+        var site = DemoSiteGenerator.Generate(seed);
         var doc = new ProjectDocument(site.ProjectFileName, site.Project, new FindingList(), new SourceMap(site.ProjectFileName));
         var loaded = new LoadedProject(doc, site.Project, site.Tables, new FindingList());
         var dtw = CoreAligner.Align(loaded, null, default);
         var ties = CoreAligner.Align(loaded.WithProject(site.Project with { Alignment = site.Project.Alignment with { Method = AlignmentMethods.Ties } }), null, default);
 
+        var perCore = new List<(string Id, double Dtw, double Ties)>();
         double sqDtw = 0, sqTies = 0;
         int n = 0, inside = 0;
         foreach (var (id, truth) in site.Truth)
@@ -43,6 +51,7 @@ public class DemoSiteAlignmentTests(ITestOutputHelper output)
                 cn++;
             }
             output.WriteLine($"{id}: RMS dtw {Math.Sqrt(cDtw / cn):0.00}, ties {Math.Sqrt(cTies / cn):0.00} {site.Project.DepthUnit}; band holds truth at {(double)cin / cn:P1} ({dtw.Diagnostics[id].Method}, T = {dtw.Diagnostics[id].Temperature:0.000}, {dtw.Diagnostics[id].Segments} segments, open {dtw.Diagnostics[id].OpenBegin}/{dtw.Diagnostics[id].OpenEnd})");
+            perCore.Add((id, Math.Sqrt(cDtw / cn), Math.Sqrt(cTies / cn)));
             sqDtw += cDtw; sqTies += cTies; n += cn; inside += cin;
         }
         double rmsDtw = Math.Sqrt(sqDtw / n), rmsTies = Math.Sqrt(sqTies / n), coverage = (double)inside / n;
@@ -50,5 +59,8 @@ public class DemoSiteAlignmentTests(ITestOutputHelper output)
         foreach (var f in dtw.Findings) output.WriteLine(f.ToString());
         Assert.True(rmsDtw <= 0.5 * rmsTies, $"dtw RMS {rmsDtw:0.00} is not at most half the ties RMS {rmsTies:0.00}");
         Assert.True(coverage >= 0.90, $"the 95% band holds the truth at {coverage:P1} of samples");
+        if (seed == 1)
+            foreach (var (id, coreDtw, coreTies) in perCore)
+                Assert.True(coreDtw <= coreTies, $"{id}: dtw RMS {coreDtw:0.00} is worse than the ties RMS {coreTies:0.00}");
     }
 }
