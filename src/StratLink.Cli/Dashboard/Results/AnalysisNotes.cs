@@ -8,7 +8,7 @@ namespace StratLink.Cli.Dashboard.Results;
 /// <summary>
 /// Reads what <see cref="AnalysisWorkflow"/> computed for one composite signal into notes: one per period
 /// asked for (its power against the 95 % red-noise level, and in how many age-model members it stays
-/// above), then one per regime shift, placed at the composite depth of its first younger sample.
+/// above), then one per regime shift (strongest first), placed at the composite depth of its first younger sample.
 /// </summary>
 public static class AnalysisNotes
 {
@@ -35,7 +35,8 @@ public static class AnalysisNotes
         var shifts = analysis.Regimes.Shifts;
         if (shifts.Count == 0)
             notes.Add(new AnalysisNote(signal, null, Invariant($"No regime shift at p < {analysis.Regimes.Options.Probability:0.##} (cut-off {analysis.Regimes.Options.CutoffLength} samples).")));
-        foreach (var shift in shifts.OrderBy(s => s.AgeBP))
+        // Strongest first: the screen lists only the first few; every shift is marked on the plot.
+        foreach (var shift in shifts.OrderByDescending(s => Math.Abs(s.Rsi)).ThenBy(s => s.AgeBP))
         {
             double? depth = null;
             if (shift.Index >= 0 && shift.Index < analysis.Series.Count)

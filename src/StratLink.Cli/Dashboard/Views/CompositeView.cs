@@ -131,7 +131,7 @@ public sealed class CompositeView : DashView
         if (notes.Count == 0)
             Put(1, footer + 2, "Cycles and regime shifts: not analysed yet (p analyses this signal).", pal.Dim, vp.Width - 1);
         for (int i = 0; i < notes.Count && footer + 2 + i < vp.Height; i++)
-            Put(1, footer + 2 + i, (Glyphs.Unicode ? "◀ " : "< ") + notes[i].Text, pal.Normal, vp.Width - 1);
+            Put(1, footer + 2 + i, (notes[i].CompositeDepth is null ? "  " : Glyphs.Unicode ? "◀ " : "< ") + notes[i].Text, pal.Normal, vp.Width - 1);
         return true;
     }
 
