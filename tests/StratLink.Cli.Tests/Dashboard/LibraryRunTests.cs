@@ -65,6 +65,15 @@ public sealed class LibraryRunTests(ITestOutputHelper output)
         Assert.InRange(int.Parse(range.Groups[1].Value), 1158, 1164);
         Assert.InRange(int.Parse(range.Groups[2].Value), 1236, 1242);
 
+        // e asks for a folder and writes the build's outputs there, run.json among them.
+        string outputs = Path.Combine(project.Folder, "outputs");
+        h.Prompts.Texts.Enqueue(outputs);
+        h.Type("e");
+        output.WriteLine(h.Window.Message);
+        Assert.StartsWith("Exported ", h.Window.Message);
+        Assert.True(File.Exists(Path.Combine(outputs, "run.json")), "no run.json in the export folder");
+        Assert.True(File.Exists(Path.Combine(outputs, "checks.csv")), "no checks.csv in the export folder");
+
         h.Type("3");
         output.WriteLine(h.ScreenText);
         string composite = h.ScreenText;
