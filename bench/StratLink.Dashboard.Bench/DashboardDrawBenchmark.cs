@@ -133,6 +133,8 @@ public class DashboardDrawBenchmark
         public string? RunUnavailable => "benchmark";
         public Cli.Dashboard.Results.RunResults Run(LoadedProject project, IProgress<WorkProgress> progress, CancellationToken cancellation) =>
             throw new InvalidOperationException(RunUnavailable);
+        public IReadOnlyList<Cli.Dashboard.Results.AnalysisNote> Analyse(Cli.Dashboard.Results.RunResults results, string signal,
+            IProgress<WorkProgress> progress, CancellationToken cancellation) => throw new InvalidOperationException(RunUnavailable);
         public string? ExportUnavailable => "benchmark";
         public string Export(LoadedProject project, Cli.Dashboard.Results.RunResults results, string folder, CancellationToken cancellation) =>
             throw new InvalidOperationException(ExportUnavailable);

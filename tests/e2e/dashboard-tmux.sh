@@ -1,11 +1,17 @@
 #!/usr/bin/env bash
 # End-to-end check of the dashboard in a real terminal (tmux), at 80x24 and at 160x48:
-# open a copy of the demo, select a marker, add a tie, run, save, quit; then check that the
-# project file holds the new tie, that a .bak was kept and that no recovery file is left.
+# open a copy of the demo, select a marker, add a tie, run the build and wait for its results,
+# check the ages and composite screens show them, save, quit; then check that the project file
+# holds the new tie, that a .bak was kept and that no recovery file is left.
 # Also checks that without a terminal the dashboard refuses with exit code 2.
 # Needs tmux and the .NET SDK on PATH; installs nothing. Exits non-zero on the first failure.
+# Works without a terminal of its own (CI, a test runner): tmux provides the program's terminal.
 # STRATLINK_CMD overrides the command that starts the program (default: the built Debug dll).
 set -euo pipefail
+
+# Test hosts set DisableRealDriverIO=1 for headless UI tests; the program under tmux must draw for
+# real, so neither the tmux server nor the program may inherit it.
+unset DisableRealDriverIO
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 DEMO="$ROOT/projects-demo"
@@ -48,7 +54,7 @@ run_size() {
   echo "== ${width}x${height}: $name"
 
   $T new-session -d -s dash -x "$width" -y "$height" \
-    "cd '$dir' && LANG=C.UTF-8 XDG_CONFIG_HOME='$dir/config' $STRATLINK_CMD '$name' 2>'$dir/stderr'; echo EXIT=\$? > '$dir/exit'; sleep 60"
+    "cd '$dir' && env -u DisableRealDriverIO LANG=C.UTF-8 XDG_CONFIG_HOME='$dir/config' $STRATLINK_CMD '$name' 2>'$dir/stderr'; echo EXIT=\$? > '$dir/exit'; sleep 60"
   wait_for "F1 Keys" "the dashboard did not start"
   wait_for "saved .*not run yet" "header without saved/not-run state"
 
@@ -67,10 +73,29 @@ run_size() {
   wait_for "UNSAVED" "header does not show unsaved edits"
   [ -f "$dir/.$(basename "$name" .yaml).recovery.yaml" ] || fail "no recovery file after an edit"
 
-  # Run: finishes, or says which part this build lacks; either way the screen stays responsive.
+  # Run: the build goes to the background with a progress bar; the results replace nothing until complete.
+  local started=$SECONDS
   $T send-keys -t dash 'r'
-  wait_for "Run finished|Running|not part of this build" "r gave no run feedback" 60
-  wait_for "Run finished|not part of this build|failed" "the run did not end" 300
+  wait_for "Running|Run finished" "r gave no run feedback" 30
+  wait_for "Run finished|failed" "the run did not end" 180
+  $T capture-pane -p -t dash | grep -q "Run finished" || fail "the run failed"
+  wait_for "results current" "header does not show current results"
+  echo "   run: $((SECONDS - started)) s, $($T capture-pane -p -t dash | grep -Eo 'Run finished[^.]*')"
+
+  # Ages: the modelled band and the controls with their calibrated 95 % ranges.
+  $T send-keys -t dash '2'
+  wait_for "Age model: age" "2 did not show the ages"
+  wait_for "cal BP" "the ages screen has no age axis"
+  wait_for "ash-1-age .* -?[0-9]+\\.\\.-?[0-9]+" "the ages screen lists no 95 % range for ash-1-age"
+  $T capture-pane -p -t dash | grep -q "▒" || fail "the ages screen draws no band"
+  echo "   ages: $($T capture-pane -p -t dash | grep -Eo 'ash-1-age .*' | tr -s ' ' | head -c 70)"
+
+  # Composite: the stacked record with its band and the splice legend.
+  $T send-keys -t dash '3'
+  wait_for "Composite [a-z_]+ \\(mean and 95% band\\)" "3 did not show the composite"
+  wait_for "splice: A=MW19-" "the composite screen has no splice"
+  echo "   composite: $($T capture-pane -p -t dash | grep -Eo 'splice: .*' | tr -s ' ')"
+  $T send-keys -t dash '1'
 
   $T send-keys -t dash 's'
   wait_for "Saved $name" "s did not save"
@@ -95,7 +120,7 @@ run_size() {
 
 # Without a terminal the dashboard must refuse at once with exit code 2, not hang.
 set +e
-timeout 20 $STRATLINK_CMD "$DEMO/$(ls "$DEMO" | grep -m1 '\.yaml$')" </dev/null >"$WORK/notty.out" 2>"$WORK/notty.err"
+env -u DisableRealDriverIO timeout 20 $STRATLINK_CMD "$DEMO/$(ls "$DEMO" | grep -m1 '\.yaml$')" </dev/null >"$WORK/notty.out" 2>"$WORK/notty.err"
 code=$?
 set -e
 [ "$code" -eq 2 ] || fail "without a terminal: exit code $code (want 2)"

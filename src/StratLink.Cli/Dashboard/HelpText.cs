@@ -34,6 +34,12 @@ public static class HelpText
         lines.Add($"  {"thin grey lines",-18} the alignment: which depths correspond after the last run");
         lines.Add($"  {(glyphs.Unicode ? "▶" : ">"),-18} the depth cursor; the active log's cursor row is highlighted");
         lines.Add("");
+        lines.Add("## What the ages and composite show (after r)");
+        lines.Add($"  {glyphs.Band,-18} 95 % band: ages over the model's members, composite over cores");
+        lines.Add($"  {glyphs.ErrorBar + glyphs.ControlMark + glyphs.ErrorBar,-18} an age control: given (calibrated) age and its 95 % range");
+        lines.Add($"  {"A B strip",-18} the splice: the core each depth is taken from (legend below)");
+        lines.Add($"  {(glyphs.Unicode ? "◀" : "<"),-18} a regime shift found by p (listed below with the periods)");
+        lines.Add("");
         lines.Add("## Saving");
         lines.Add("  Every edit is written at once to a recovery file beside the project");
         lines.Add("  (.NAME.recovery.yaml); the next start offers it back if the session was lost.");

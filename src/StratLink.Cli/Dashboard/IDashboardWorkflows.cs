@@ -5,7 +5,7 @@ namespace StratLink.Cli.Dashboard;
 
 /// <summary>
 /// The library workflows as the dashboard uses them: load a project with its tables, run the
-/// build on a snapshot in the background, export the outputs. Tests substitute their own.
+/// build on a snapshot in the background, analyse a composite signal, export the outputs. Tests substitute their own.
 /// </summary>
 public interface IDashboardWorkflows
 {
@@ -16,6 +16,12 @@ public interface IDashboardWorkflows
 
     /// <summary>Runs alignment, ages, composite and checks on <paramref name="project"/>; called off the UI thread.</summary>
     RunResults Run(LoadedProject project, IProgress<WorkProgress> progress, CancellationToken cancellation);
+
+    /// <summary>
+    /// Looks for cycles and regime shifts in <paramref name="signal"/>'s composite of <paramref name="results"/>;
+    /// called off the UI thread. Throws <see cref="InvalidOperationException"/> with the reason when it cannot.
+    /// </summary>
+    IReadOnlyList<AnalysisNote> Analyse(RunResults results, string signal, IProgress<WorkProgress> progress, CancellationToken cancellation);
 
     /// <summary>Null when export is possible; otherwise the reason shown to the user.</summary>
     string? ExportUnavailable { get; }

@@ -17,7 +17,8 @@ internal sealed class DashboardHarness : IDisposable
 {
     private readonly SessionToken? _token;
 
-    public DashboardHarness(TestProject project, int width = 80, int height = 24, GlyphSet? glyphs = null, bool begin = true)
+    public DashboardHarness(TestProject project, int width = 80, int height = 24, GlyphSet? glyphs = null, bool begin = true,
+        IDashboardWorkflows? workflows = null)
     {
         Project = project;
         App = Application.Create();
@@ -27,7 +28,7 @@ internal sealed class DashboardHarness : IDisposable
         Workflows = new TestWorkflows(project.Loaded);
         Prompts = new ScriptedPrompts();
         Recovery = new RecoveryFile(project.FilePath);
-        Window = new DashboardWindow(App, State, Workflows, Prompts, glyphs ?? GlyphSet.Utf8, Recovery, null);
+        Window = new DashboardWindow(App, State, workflows ?? Workflows, Prompts, glyphs ?? GlyphSet.Utf8, Recovery, null);
         if (begin)
         {
             _token = App.Begin(Window);
@@ -62,6 +63,41 @@ internal sealed class DashboardHarness : IDisposable
     }
 
     public string Cell(int r, int c) => App.Driver!.Contents![r, c].Grapheme;
+
+    /// <summary>
+    /// Runs the window's main loop, calling <paramref name="step"/> on each iteration until it returns true;
+    /// returns false when the watchdog stopped it after <paramref name="limit"/> instead.
+    /// </summary>
+    public bool RunUntil(Func<int, bool> step, TimeSpan? limit = null)
+    {
+        bool timedOut = false;
+        App.AddTimeout(limit ?? TimeSpan.FromSeconds(10), () => { timedOut = true; App.RequestStop(); return false; });
+        int i = 0;
+        void OnIteration(object? s, EventArgs<IApplication?> e)
+        {
+            if (step(i++)) App.RequestStop();
+        }
+        App.Iteration += OnIteration;
+        App.Run(Window);
+        App.Iteration -= OnIteration;
+        return !timedOut;
+    }
+
+    /// <summary>Lays out and draws the window without a main loop until disposed (after <see cref="RunUntil"/> has returned).</summary>
+    public IDisposable Session()
+    {
+        var token = App.Begin(Window);
+        App.LayoutAndDraw();
+        return new EndSession(App, token);
+    }
+
+    private sealed class EndSession(IApplication app, SessionToken? token) : IDisposable
+    {
+        public void Dispose()
+        {
+            if (token is not null) app.End(token);
+        }
+    }
 
     public Terminal.Gui.Drawing.Attribute? Attr(int r, int c) => App.Driver!.Contents![r, c].Attribute;
 

@@ -20,7 +20,7 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Contains("●", screen);
         Assert.Contains(screen, ch => ch is >= '\u2801' and <= '\u28FF');
         // Control list: calibrated 95 % range from the run.
-        Assert.Contains("1160-1240", screen);
+        Assert.Contains("1160..1240", screen);
         // The age axis starts at the youngest 95 % bound: the coring-year control's -70 cal BP.
         Assert.Contains("-70 cal BP", screen);
     }
@@ -40,7 +40,7 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Contains("splice: A=T-1 B=T-2", screen);
         Assert.Equal("A", h.Cell(3, 7));
         Assert.Equal("B", h.Cell(3 + 13, 7));
-        Assert.Contains("Cycles and regime shifts: not analysed in this run.", screen);
+        Assert.Contains("Cycles and regime shifts: not analysed yet (p analyses this signal).", screen);
         h.Type("a");
         Assert.Contains("against age (cal BP)", h.Row(2));
     }

@@ -10,21 +10,7 @@ namespace StratLink.Tests.Dashboard;
 [Collection("TerminalGui")]
 public sealed class RunAndQuitTests
 {
-    /// <summary>Runs the window, calling <paramref name="step"/> on each iteration until it returns true; fails after 10 s.</summary>
-    private static bool RunUntil(DashboardHarness h, Func<int, bool> step)
-    {
-        bool timedOut = false;
-        h.App.AddTimeout(TimeSpan.FromSeconds(10), () => { timedOut = true; h.App.RequestStop(); return false; });
-        int i = 0;
-        void OnIteration(object? s, EventArgs<IApplication?> e)
-        {
-            if (step(i++)) h.App.RequestStop();
-        }
-        h.App.Iteration += OnIteration;
-        h.App.Run(h.Window);
-        h.App.Iteration -= OnIteration;
-        return !timedOut;
-    }
+    private static bool RunUntil(DashboardHarness h, Func<int, bool> step) => h.RunUntil(step);
 
     [Fact]
     public void A_cancelled_run_leaves_the_results_as_they_were()

@@ -38,6 +38,15 @@ internal sealed class TestWorkflows(LoadedProject loaded) : IDashboardWorkflows
         return Results?.Invoke(project) ?? new RunResults { Project = project.Project, FinishedAt = DateTimeOffset.UnixEpoch };
     }
 
+    /// <summary>Notes <see cref="Analyse"/> returns for any signal.</summary>
+    public IReadOnlyList<AnalysisNote> Notes { get; set; } = [];
+
+    public IReadOnlyList<AnalysisNote> Analyse(RunResults results, string signal, IProgress<WorkProgress> progress, CancellationToken cancellation)
+    {
+        progress.Report(new WorkProgress("spectrum", 0.5));
+        return Notes.Select(n => n with { Signal = signal }).ToList();
+    }
+
     public string? ExportUnavailable => "export is not available in tests";
 
     public string Export(LoadedProject project, RunResults results, string folder, CancellationToken cancellation) =>

@@ -47,5 +47,6 @@ public enum DashCommand
     ListPageDown,
     ToggleExclude,
     ToggleAxis,
+    Analyse,
     GoToFinding,
 }

@@ -63,8 +63,14 @@ public static class KeyTable
         new(DashCommand.ListPageDown, Lists, "Page down", "Down one page", 0, [Special(KeyCode.PageDown, "PgDn")]),
         new(DashCommand.ToggleExclude, [Screen.Ages], "Exclude", "Leave the selected age control out of the age model, or take it back in", 2, [Special(KeyCode.Space, "Space")]),
         new(DashCommand.ToggleAxis, [Screen.Composite], "Depth/age", "Plot the composite against composite depth or against age", 2, [Char('a')]),
+        new(DashCommand.Analyse, [Screen.Composite], "Analyse", AnalyseHelp, 3, [Char('p')]),
         new(DashCommand.GoToFinding, [Screen.Findings], "Go to", "Show the place of the selected finding in the logs", 2, [Special(KeyCode.Enter, "Enter")]),
     ];
+
+    private static string AnalyseHelp =>
+        "Analyse this signal in the background: periodogram against red noise at "
+        + string.Join(" and ", LibraryWorkflows.DefaultPeriodsYears.Select(p => p.ToString(System.Globalization.CultureInfo.InvariantCulture)))
+        + " yr and regime shifts, over the age-model members (x stops)";
 
     /// <summary>The command <paramref name="key"/> means on <paramref name="screen"/>; screen-specific rows win over global ones.</summary>
     public static KeyEntry? Find(Key key, Screen screen) =>

@@ -1,4 +1,8 @@
 namespace StratLink.Cli.Dashboard.Results;
 
-/// <summary>One age control as the age model used it: calibrated 95 % range and any flags (outlier, out of curve, ...).</summary>
-public sealed record ControlOutcome(string Id, double? CompositeDepth, double AgeMedianBP, double AgeLoBP, double AgeHiBP, string Flags);
+/// <summary>
+/// One age control as the age model used it: its age (calibrated for radiocarbon) with the 95 % envelope drawn
+/// as its error bar, the 95 % ranges as text (several for a calibrated date), and any flags (out of order, excluded, unusable).
+/// </summary>
+public sealed record ControlOutcome(string Id, double? CompositeDepth, double AgeMedianBP, double AgeLoBP, double AgeHiBP, string Flags,
+    string? Ranges95 = null);

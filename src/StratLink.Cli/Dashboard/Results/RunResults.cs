@@ -1,6 +1,7 @@
 using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Model;
+using StratLink.Workflows;
 
 namespace StratLink.Cli.Dashboard.Results;
 
@@ -17,6 +18,9 @@ public sealed record RunResults
     public IReadOnlyList<ControlOutcome> Controls { get; init; } = [];
     public CompositeRecords? Composite { get; init; }
     public IReadOnlyList<Finding>? Checks { get; init; }
+
+    /// <summary>The library's build these results were read from, kept for export and for the record analysis; null for results made otherwise.</summary>
+    public BuildResult? Build { get; init; }
 
     /// <summary>Stages that did not run, with the reason (shown instead of the missing part).</summary>
     public IReadOnlyList<string> Skipped { get; init; } = [];

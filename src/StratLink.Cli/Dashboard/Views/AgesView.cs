@@ -82,7 +82,7 @@ public sealed class AgesView : DashView
             ageMin = Math.Min(ageMin, l);
             ageMax = Math.Max(ageMax, h);
         }
-        foreach (var c in results.Controls)
+        foreach (var c in results.Controls.Where(Drawable))
         {
             ageMin = Math.Min(ageMin, c.AgeLoBP);
             ageMax = Math.Max(ageMax, c.AgeHiBP);
@@ -103,7 +103,7 @@ public sealed class AgesView : DashView
         CurvePlotter.DrawProfile(canvas, median, ageMin, ageMax);
         PutCanvas(plotLeft, area.Y + 1, canvas, pal.Curve);
 
-        foreach (var c in results.Controls)
+        foreach (var c in results.Controls.Where(Drawable))
         {
             if (c.CompositeDepth is not double d || d < top || d > bottom) continue;
             int r = Math.Clamp((int)((d - top) / (dotDepth * 4)), 0, rows - 1);
@@ -117,6 +117,9 @@ public sealed class AgesView : DashView
         Put(plotLeft, area.Y + area.Height - 1, axisText, pal.Dim);
         Put(plotLeft + Math.Max(axisText.Length + 1, cols - right.Length), area.Y + area.Height - 1, right, pal.Dim);
     }
+
+    /// <summary>Controls the model could not place or date (unusable, undrawn) have no error bar to draw.</summary>
+    private static bool Drawable(ControlOutcome c) => double.IsFinite(c.AgeLoBP) && double.IsFinite(c.AgeHiBP) && double.IsFinite(c.AgeMedianBP);
 
     private void DrawList(System.Drawing.Rectangle area, Palette pal)
     {
@@ -161,7 +164,7 @@ public sealed class AgesView : DashView
         };
         string range = outcome is null
             ? (_state.Results is null ? "not run yet" : "-")
-            : $"{FormatNumber(outcome.AgeLoBP)}-{FormatNumber(outcome.AgeHiBP)}";
+            : outcome.Ranges95 ?? (Drawable(outcome) ? $"{FormatNumber(outcome.AgeLoBP)}..{FormatNumber(outcome.AgeHiBP)}" : "-");
         return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 11),-11} {Cut(a.KindName, 11),-11} {Cut(where, 14),-14} {Cut(given, 17),-17} {Cut(range, 15),-15} {outcome?.Flags}";
     }
 

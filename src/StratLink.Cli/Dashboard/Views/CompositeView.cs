@@ -39,7 +39,7 @@ public sealed class CompositeView : DashView
         return true;
     }
 
-    private CompositeSignal? CurrentSignal() =>
+    public CompositeSignal? CurrentSignal() =>
         _state.Results?.Composite is { Signals.Count: > 0 } c ? c.Signals[Math.Min(SignalIndex, c.Signals.Count - 1)] : null;
 
     protected override bool OnDrawingContent(Terminal.Gui.ViewBase.DrawContext? context)
@@ -62,7 +62,7 @@ public sealed class CompositeView : DashView
         string axisName = byAge ? "age (cal BP)" : $"composite depth ({unit})";
         Put(0, 0, Fit($" Composite {signal.Name} (mean and 95% band) against {axisName}", vp.Width), pal.Header);
 
-        int noteRows = Math.Min(4, Math.Max(1, composite.Analysis.Count + 1));
+        int noteRows = Math.Min(4, Math.Max(1, composite.Analysis.Count(n => n.Signal == signal.Name)));
         // Title row above; value range, splice legend and the analysis notes below.
         int rows = vp.Height - 3 - noteRows;
         int plotLeft = Axis + Strip + 1;
@@ -124,14 +124,14 @@ public sealed class CompositeView : DashView
         }
 
         int footer = rows + 1;
-        Put(plotLeft, footer, $"{Number(vMin)} .. {Number(vMax)} {signal.Name}", pal.Dim, cols);
+        Put(plotLeft, footer, $"{Number(vMin)} .. {Number(vMax)} {signal.Name}{(signal.Standardised ? " (z-score)" : "")}", pal.Dim, cols);
         string legend = "splice: " + string.Join(" ", coreIndex.Select((c, i) => $"{SpliceLabel(i).Trim()}={c}"));
         Put(1, footer + 1, legend, pal.Normal, vp.Width - 1);
         var notes = composite.Analysis.Where(n => n.Signal == signal.Name).ToList();
         if (notes.Count == 0)
-            Put(1, footer + 2, "Cycles and regime shifts: not analysed in this run.", pal.Dim, vp.Width - 1);
+            Put(1, footer + 2, "Cycles and regime shifts: not analysed yet (p analyses this signal).", pal.Dim, vp.Width - 1);
         for (int i = 0; i < notes.Count && footer + 2 + i < vp.Height; i++)
-            Put(1, footer + 2 + i, (Glyphs.Unicode ? "◀ " : "< ") + notes[i].Text, pal.Normal, vp.Width - 1);
+            Put(1, footer + 2 + i, (notes[i].CompositeDepth is null ? "  " : Glyphs.Unicode ? "◀ " : "< ") + notes[i].Text, pal.Normal, vp.Width - 1);
         return true;
     }
 

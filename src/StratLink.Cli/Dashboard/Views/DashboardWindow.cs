@@ -153,6 +153,7 @@ public sealed class DashboardWindow : Runnable
             ? (Composite.AgeAxis ? "Composite against age." : "Composite against composite depth.")
             : "No age model in these results: the composite stays on composite depth.", MessageLevel.Info),
         [DashCommand.GoToFinding] = GoToFinding,
+        [DashCommand.Analyse] = StartAnalysis,
     };
 
     // ---- editing ----------------------------------------------------------------------------
@@ -302,17 +303,50 @@ public sealed class DashboardWindow : Runnable
 
     private void StartRun()
     {
-        if (_run is not null)
-        {
-            Show("A run is going already; x stops it.", MessageLevel.Warning);
-            return;
-        }
+        if (Busy()) return;
         if (_workflows.RunUnavailable is { } why)
         {
             Show(Capitalise(why) + ".", MessageLevel.Warning);
             return;
         }
         var snapshot = _state.Snapshot();
+        StartBackground((progress, ct) =>
+        {
+            var results = _workflows.Run(snapshot, progress, ct);
+            return () => FinishRun(results);
+        });
+    }
+
+    /// <summary>Analyses the composite screen's signal of the last results, in the background like a run.</summary>
+    private void StartAnalysis()
+    {
+        if (Busy()) return;
+        if (_state.Results is not { } results || Composite.CurrentSignal() is not { } signal)
+        {
+            Show("Nothing to analyse yet: r runs alignment, ages and composite first.", MessageLevel.Warning);
+            return;
+        }
+        StartBackground((progress, ct) =>
+        {
+            var notes = _workflows.Analyse(results, signal.Name, progress, ct);
+            return () => FinishAnalysis(results, signal.Name, notes);
+        });
+        Show($"Analysing {signal.Name}...");
+    }
+
+    private bool Busy()
+    {
+        if (_run is null) return false;
+        Show("A run is going already; x stops it.", MessageLevel.Warning);
+        return true;
+    }
+
+    /// <summary>
+    /// Runs <paramref name="work"/> off the UI thread with the progress bar showing; the action it returns is
+    /// applied on the UI thread only when the work completed and was not stopped meanwhile.
+    /// </summary>
+    private void StartBackground(Func<IProgress<WorkProgress>, CancellationToken, Action> work)
+    {
         var cts = new CancellationTokenSource();
         _run = cts;
         var progress = new UiProgress(this);
@@ -321,38 +355,56 @@ public sealed class DashboardWindow : Runnable
         {
             try
             {
-                var results = _workflows.Run(snapshot, progress, cts.Token);
-                Ui(() => FinishRun(cts, cts.IsCancellationRequested ? null : results, cts.IsCancellationRequested ? StoppedMessage : null));
+                var complete = work(progress, cts.Token);
+                Ui(() => FinishBackground(cts, cts.IsCancellationRequested ? null : complete, cts.IsCancellationRequested ? StoppedMessage : null));
             }
             catch (OperationCanceledException)
             {
-                Ui(() => FinishRun(cts, null, StoppedMessage));
+                Ui(() => FinishBackground(cts, null, StoppedMessage));
             }
             catch (Exception e)
             {
-                Ui(() => FinishRun(cts, null, "The run failed: " + e.Message));
+                Ui(() => FinishBackground(cts, null, "The run failed: " + e.Message));
             }
         });
     }
 
     private const string StoppedMessage = "Run stopped; the previous results stay.";
 
-    private void FinishRun(CancellationTokenSource cts, RunResults? results, string? failure)
+    private void FinishBackground(CancellationTokenSource cts, Action? complete, string? failure)
     {
         if (!ReferenceEquals(_run, cts)) return;
         _run = null;
         cts.Dispose();
         _message.ShowProgress(null);
-        if (results is null)
+        if (complete is null)
         {
             Show(failure ?? StoppedMessage, failure == StoppedMessage ? MessageLevel.Info : MessageLevel.Error);
             return;
         }
+        complete();
+    }
+
+    private void FinishRun(RunResults results)
+    {
         _state.SetResults(results);
         string skipped = results.Skipped.Count > 0 ? " Not run: " + string.Join("; ", results.Skipped) + "." : "";
         int findings = results.Checks?.Count ?? 0;
         Show($"Run finished at {results.FinishedAt.ToLocalTime():HH:mm:ss}: {findings} finding(s).{skipped}",
             results.Skipped.Count > 0 ? MessageLevel.Warning : MessageLevel.Info);
+    }
+
+    private void FinishAnalysis(RunResults analysed, string signal, IReadOnlyList<AnalysisNote> notes)
+    {
+        if (!ReferenceEquals(_state.Results, analysed) || analysed.Composite is not { } composite)
+        {
+            Show($"A newer run replaced the results while {signal} was analysed; p analyses it again.", MessageLevel.Warning);
+            return;
+        }
+        var kept = composite.Analysis.Where(n => n.Signal != signal);
+        _state.SetResults(analysed with { Composite = composite with { Analysis = [.. kept, .. notes] } });
+        int shifts = notes.Count(n => n.CompositeDepth is not null);
+        Show($"Analysed {signal}: {shifts} regime shift(s) marked, {notes.Count} note(s) under the plot.");
     }
 
     private void StopRun()

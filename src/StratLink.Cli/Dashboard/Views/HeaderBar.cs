@@ -28,6 +28,9 @@ public sealed class HeaderBar : DashView
         _ => "",
     };
 
+    private string Shorten(string text, int width) =>
+        text.Length <= width ? text : text[..Math.Max(1, width - 1)] + (Glyphs.Unicode ? "…" : "~");
+
     protected override bool OnDrawingContent(Terminal.Gui.ViewBase.DrawContext? context)
     {
         var pal = Colors;
@@ -38,10 +41,10 @@ public sealed class HeaderBar : DashView
         string file = Path.GetFileName(_state.FilePath);
         string saved = SavedText(_state);
         string results = ResultsText(_state.ResultsState);
-        // The states matter most: the site name gives way first when the line is short.
-        int fixedLength = "StratLink".Length + 4 * sep.Length + file.Length + saved.Length + results.Length + 1;
-        int siteRoom = Math.Max(4, w - fixedLength);
-        if (site.Length > siteRoom) site = site[..Math.Max(1, siteRoom - 1)] + (Glyphs.Unicode ? "…" : "~");
+        // The states matter most: the site name gives way first, then the file name (long names at 80 columns).
+        int room = w - (" StratLink".Length + 4 * sep.Length + saved.Length + results.Length);
+        file = Shorten(file, Math.Clamp(room - 5, 8, Math.Max(8, file.Length)));
+        site = Shorten(site, Math.Max(4, room - file.Length));
 
         int x = 0;
         void Part(string text, Terminal.Gui.Drawing.Attribute attr)
