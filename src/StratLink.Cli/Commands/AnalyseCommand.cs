@@ -30,13 +30,7 @@ internal static class AnalyseCommand
                 ctx.Fail($"--periods: '{bad}' is not a positive number of years (write e.g. --periods 11,88).");
                 return ExitCodes.Usage;
             }
-            var loaded = ProjectLoader.Load(parse.GetValue(project)!.FullName, ctx.Cancellation);
-            if (loaded.Problems.HasErrors)
-            {
-                foreach (var p in loaded.Problems.Where(p => p.Severity == Severity.Error)) ctx.Error.WriteLine(p.ToString());
-                ctx.Fail("the project has errors (above); nothing was analysed.");
-                return ExitCodes.Usage;
-            }
+            if (LoadForRun.Load(parse.GetValue(project)!, ctx, "nothing was analysed") is not { } loaded) return ExitCodes.Usage;
             string name = parse.GetValue(signal)!;
             using var progress = new ConsoleProgress(ctx);
             var build = BuildWorkflow.Run(loaded, progress, ctx.Cancellation);

@@ -21,15 +21,8 @@ internal static class BuildCommand
         };
         cmd.SetAction(parse =>
         {
-            string path = parse.GetValue(project)!.FullName;
             string dir = parse.GetValue(output)!.FullName;
-            var loaded = ProjectLoader.Load(path, ctx.Cancellation);
-            if (loaded.Problems.HasErrors)
-            {
-                foreach (var p in loaded.Problems.Where(p => p.Severity == Severity.Error)) ctx.Error.WriteLine(p.ToString());
-                ctx.Fail("the project has errors (above); nothing was built.");
-                return ExitCodes.Usage;
-            }
+            if (LoadForRun.Load(parse.GetValue(project)!, ctx, "nothing was built") is not { } loaded) return ExitCodes.Usage;
             BuildResult result;
             using (var progress = new ConsoleProgress(ctx))
                 result = BuildWorkflow.Run(loaded, progress, ctx.Cancellation);

@@ -1,6 +1,4 @@
 using System.CommandLine;
-using StratLink.Checks;
-using StratLink.Compositing;
 using StratLink.Export;
 using StratLink.ProjectIO;
 using StratLink.Workflows;
@@ -25,13 +23,7 @@ internal static class ExportCommand
         var cmd = new Command("export", "Build the project and write one of its tables.") { project, what, output, tsv };
         cmd.SetAction(parse =>
         {
-            var loaded = ProjectLoader.Load(parse.GetValue(project)!.FullName, ctx.Cancellation);
-            if (loaded.Problems.HasErrors)
-            {
-                foreach (var p in loaded.Problems.Where(p => p.Severity == Severity.Error)) ctx.Error.WriteLine(p.ToString());
-                ctx.Fail("the project has errors (above); nothing was exported.");
-                return ExitCodes.Usage;
-            }
+            if (LoadForRun.Load(parse.GetValue(project)!, ctx, "nothing was exported") is not { } loaded) return ExitCodes.Usage;
             BuildResult build;
             using (var progress = new ConsoleProgress(ctx))
                 build = BuildWorkflow.Run(loaded, progress, ctx.Cancellation);
