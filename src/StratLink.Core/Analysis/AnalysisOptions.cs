@@ -9,6 +9,13 @@ public sealed record AnalysisOptions
     public SpectrumOptions Spectrum { get; init; } = new();
     public RegimeShiftOptions Regimes { get; init; } = new();
 
+    /// <summary>
+    /// Cut-off length of the regime test in years; when set it replaces <see cref="RegimeShiftOptions.CutoffLength"/>
+    /// with round(years / mean spacing of the median-age record), at least 2 samples, the same l for every member.
+    /// The mean spacing (span / (n - 1)) is used so that l samples cover the stated years on average.
+    /// </summary>
+    public double? ShiftCutoffYears { get; init; }
+
     /// <summary>Periods of interest, years (e.g. 11 and 88): checked in the spectrum and band-passed.</summary>
     public IReadOnlyList<double> PeriodsYears { get; init; } = [];
 

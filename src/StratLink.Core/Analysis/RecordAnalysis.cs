@@ -19,6 +19,13 @@ public static class RecordAnalysis
         int dropped = input.Values.Length - series.Count;
         if (dropped > 0)
             findings.AddNote("analysis.missing", $"{dropped} of {input.Values.Length} samples of {input.SignalName} have no value or age and are left out.");
+        if (options.ShiftCutoffYears is double cutoffYears)
+        {
+            if (!(cutoffYears > 0) || !double.IsFinite(cutoffYears))
+                throw new ArgumentOutOfRangeException(nameof(options), cutoffYears, "The regime test's cut-off must be a positive number of years.");
+            int l = series.Count < 2 ? 2 : Math.Max(2, (int)Math.Round(cutoffYears / series.MeanSpacingYears));
+            options = options with { Regimes = options.Regimes with { CutoffLength = l } };
+        }
         int needed = Math.Max(options.Regimes.CutoffLength + 1, SegmentLayout.MinimumLength * (options.Spectrum.Segments + 1) / 2);
         if (series.Count < needed)
             throw new ArgumentException($"{input.SignalName} has {series.Count} dated values; the analysis needs at least {needed}.");

@@ -11,7 +11,7 @@ public sealed class DemoSite
 {
     internal DemoSite(int seed, string fileStem, Project project, IReadOnlyDictionary<string, CoreTable> tables,
         IReadOnlyDictionary<string, CoreTruth> truth, string varveCoreId, IReadOnlyList<VarveLayer> countedVarves,
-        int trueVarveCount, SiteHistory history, IReadOnlyList<EventLayer> events)
+        int trueVarveCount, IReadOnlyList<VarveLayer> referenceCountedVarves, int referenceTrueVarveCount, SiteHistory history, IReadOnlyList<EventLayer> events)
     {
         Seed = seed;
         FileStem = fileStem;
@@ -21,6 +21,8 @@ public sealed class DemoSite
         VarveCoreId = varveCoreId;
         CountedVarves = countedVarves;
         TrueVarveCount = trueVarveCount;
+        ReferenceCountedVarves = referenceCountedVarves;
+        ReferenceTrueVarveCount = referenceTrueVarveCount;
         History = history;
         Events = events;
     }
@@ -50,6 +52,18 @@ public sealed class DemoSite
 
     /// <summary>Number of whole true varves inside the varved core.</summary>
     public int TrueVarveCount { get; }
+
+    /// <summary>The reference piston core's varves as counted over its whole length, top down.</summary>
+    public IReadOnlyList<VarveLayer> ReferenceCountedVarves { get; }
+
+    /// <summary>Number of whole true varves inside the reference core.</summary>
+    public int ReferenceTrueVarveCount { get; }
+
+    /// <summary>The counted varves of a core that has a varve table (the freeze core or the reference core).</summary>
+    public IReadOnlyList<VarveLayer> CountedVarvesOf(string coreId) =>
+        coreId == VarveCoreId ? CountedVarves
+        : coreId == ReferenceCoreId ? ReferenceCountedVarves
+        : throw new ArgumentException($"Core {coreId} has no varve count.", nameof(coreId));
 
     public SiteHistory History { get; }
 

@@ -209,10 +209,17 @@ public class DemoSiteGeneratorTests
 
         var top = Assert.Single(p.Ages.OfType<CalendarAgeControl>(), a => a.Core is not null);
         Assert.Equal(("MW19-F4", 0.0, -69.0), (top.Core, top.Depth!.Value.In(Cm), top.Age.YearsBP));
-        Assert.Equal(3, p.Ages.OfType<CalendarAgeControl>().Count(a => a.Marker is not null));
-        var varves = Assert.Single(p.Ages.OfType<VarveCountControl>());
-        Assert.Equal(("MW19-F4", "cores/MW19-F4-varves.csv", 0.0, -69.0, 0.02),
-            (varves.Core, varves.Table, varves.AnchorDepth.In(Cm), varves.AnchorAge.YearsBP, varves.CountError));
+        Assert.False(top.Exclude);
+        // Tephra ages and the freeze core's count are independent checks of the reference core's varve chronology.
+        var tephraAges = p.Ages.OfType<CalendarAgeControl>().Where(a => a.Marker is not null).ToList();
+        Assert.Equal(3, tephraAges.Count);
+        Assert.All(tephraAges, a => Assert.True(a.Exclude, a.Id));
+        var varves = p.Ages.OfType<VarveCountControl>().ToList();
+        Assert.Equal(2, varves.Count);
+        Assert.Equal(("MW19-F4", "cores/MW19-F4-varves.csv", 0.0, -69.0, 0.02, true),
+            (varves[0].Core, varves[0].Table, varves[0].AnchorDepth.In(Cm), varves[0].AnchorAge.YearsBP, varves[0].CountError, varves[0].Exclude));
+        Assert.Equal(("MW19-P1", "cores/MW19-P1-varves.csv", 0.0, -69.0, 0.02, false),
+            (varves[1].Core, varves[1].Table, varves[1].AnchorDepth.In(Cm), varves[1].AnchorAge.YearsBP, varves[1].CountError, varves[1].Exclude));
     }
 
     [Theory]
@@ -249,6 +256,22 @@ public class DemoSiteGeneratorTests
         Assert.True(v[^1].Bottom <= truth.Length);
         // About 1 % missed and 1 % doubled: over ~300 varves the net error has sd ~2.5 varves; 5 % is about 6 sd.
         Assert.InRange(v.Count, site.TrueVarveCount * 0.95, site.TrueVarveCount * 1.05);
+    }
+
+    [Theory]
+    [MemberData(nameof(Seeds))]
+    public void CountedVarvesCoverTheReferenceCoreAndMatchTheTrueCountClosely(int seed)
+    {
+        var site = DemoSiteGenerator.Generate(seed);
+        var truth = site.Truth[site.ReferenceCoreId];
+        Assert.Equal((int)Math.Floor(truth.AgeAt(truth.Length) - DemoSiteGenerator.CoringAgeBP), site.ReferenceTrueVarveCount);
+        var v = site.ReferenceCountedVarves;
+        Assert.Equal(0, v[0].Top);
+        for (int i = 1; i < v.Count; i++) Assert.Equal(v[i - 1].Bottom, v[i].Top);
+        Assert.True(v[^1].Bottom <= truth.Length);
+        // ~1 % missed and ~1 % doubled over ~3500 varves: the net error has sd ~ sqrt(0.02 n) ~ 8 varves, so 1 %
+        // (~35 varves) is about 4 sd; the age model's stated 2 % counting error is far wider.
+        Assert.InRange(v.Count, site.ReferenceTrueVarveCount * 0.99, site.ReferenceTrueVarveCount * 1.01);
     }
 
     [Fact]

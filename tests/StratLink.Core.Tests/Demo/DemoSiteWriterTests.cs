@@ -21,7 +21,7 @@ public sealed class DemoSiteWriterTests : IDisposable
         Assert.Equal(Path.Combine(_dir, "mirrowick-fjord.stratlink.yaml"), path);
         string[] expected =
         [
-            "cores/MW19-F4-varves.csv", "cores/MW19-F4.csv", "cores/MW19-G3.csv", "cores/MW19-P1.csv", "cores/MW19-P2.csv",
+            "cores/MW19-F4-varves.csv", "cores/MW19-F4.csv", "cores/MW19-G3.csv", "cores/MW19-P1-varves.csv", "cores/MW19-P1.csv", "cores/MW19-P2.csv",
             "mirrowick-fjord.stratlink.yaml",
             "truth/MW19-F4-truth.csv", "truth/MW19-G3-truth.csv", "truth/MW19-P1-truth.csv", "truth/MW19-P2-truth.csv", "truth/README.md",
         ];
@@ -74,6 +74,8 @@ public sealed class DemoSiteWriterTests : IDisposable
         Assert.Equal("depth_top,depth_bottom", varveHeader);
         Assert.Equal(site.CountedVarves.Count, varves.Count);
         Assert.Equal(site.CountedVarves.Select(v => v.Bottom), varves.Select(r => r[1]));
+        var referenceVarves = Read(Path.Combine(_dir, "cores", "MW19-P1-varves.csv"), out _);
+        Assert.Equal(site.ReferenceCountedVarves.Select(v => v.Top), referenceVarves.Select(r => r[0]));
         string readme = File.ReadAllText(Path.Combine(_dir, "truth", "README.md"));
         Assert.Contains("invented", readme);
         Assert.Contains("seed 1", readme);

@@ -1,0 +1,62 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
+using StratLink.Tests.TestSupport;
+using Xunit.Abstractions;
+
+namespace StratLink.Tests.Commands;
+
+/// <summary>
+/// <c>stratlink analyse</c> on the demo, whose hidden truth (generator: cycles of 11 and 88 yr, regime shifts at
+/// 1480 and 2710 cal BP) is the outside reference; Lomb 1976, Scargle 1982, Schulz and Mudelsee 2002 for the
+/// spectrum and Rodionov 2004 (GRL 31:L09204) for the shifts.
+/// </summary>
+public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDisposable
+{
+    private readonly string _dir = Directory.CreateTempSubdirectory("stratlink-analyse-").FullName;
+
+    public void Dispose() => Directory.Delete(_dir, recursive: true);
+
+    [Fact]
+    public void The_demo_cycles_and_shifts_are_found_with_the_long_record_defaults()
+    {
+        string project = CliRunner.CopyDemo(Path.Combine(_dir, "demo"));
+        string target = Path.Combine(_dir, "out");
+        var (code, output, err) = CliRunner.Run("analyse", project, "--signal", "ca_ti", "--periods", "11,88", "--members", "100", "--out", target);
+        Assert.True(code == 0, output + err);
+        log.WriteLine(output);
+
+        Assert.Contains("100 age-model members", output);
+        // Default cut-off 150 yr on a record sampled about every 2 yr: l = 70-80 samples.
+        var l = Regex.Match(output, @"l = (\d+) samples = 150 yr, p = 0\.05, h = 2\)");
+        Assert.True(l.Success, output);
+        Assert.InRange(int.Parse(l.Groups[1].Value, CultureInfo.InvariantCulture), 70, 80);
+        foreach (string period in new[] { "11", "88" })
+        {
+            var m = Regex.Match(output, $@"  {period} yr: .* above it in (\d+) % of members");
+            Assert.True(m.Success, output);
+            Assert.True(int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture) > 50, $"{period} yr: {m.Value}");
+        }
+        // Each true shift lies inside the member age range of a shift the test reports.
+        var ranges = ShiftRange().Matches(output).Select(m => (Lo: double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), Hi: double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture))).ToList();
+        foreach (double trueAge in new[] { 1480.0, 2710.0 })
+            Assert.Contains(ranges, r => r.Lo <= trueAge && trueAge <= r.Hi);
+        Assert.True(File.Exists(Path.Combine(target, "shifts.csv")));
+    }
+
+    [Theory]
+    [InlineData("--shift-cutoff", "0")]
+    [InlineData("--shift-probability", "1.5")]
+    [InlineData("--huber", "-1")]
+    [InlineData("--members", "0")]
+    public void Bad_regime_settings_are_usage_errors_naming_the_option(string option, string value)
+    {
+        string project = CliRunner.CopyDemo(Path.Combine(_dir, "demo"));
+        var (code, output, err) = CliRunner.Run("analyse", project, "--signal", "ca_ti", option, value, "--out", Path.Combine(_dir, "out"));
+        Assert.Equal(2, code);
+        Assert.Contains(option, err);
+        Assert.Equal("", output);
+    }
+
+    [GeneratedRegex(@"95 % range over members (-?\d+)-(-?\d+) cal BP")]
+    private static partial Regex ShiftRange();
+}
