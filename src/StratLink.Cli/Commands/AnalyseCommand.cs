@@ -72,13 +72,12 @@ internal static class AnalyseCommand
                 ctx.Fail($"--signal: the composite has no signal '{name}' (it has: {string.Join(", ", build.Composite.Records.Select(r => r.Signal))}).");
                 return ExitCodes.Usage;
             }
-            var options = new AnalysisOptions
+            var defaults = AnalysisOptions.ForCompositeRecord(loaded.Project.AgeModel.Seed, periodList);
+            var options = defaults with
             {
-                Seed = loaded.Project.AgeModel.Seed,
-                PeriodsYears = periodList,
                 MaxMembers = maxMembers,
                 ShiftCutoffYears = cutoffYears,
-                Regimes = new RegimeShiftOptions { Probability = prob, HuberParameter = h },
+                Regimes = defaults.Regimes with { Probability = prob, HuberParameter = h },
             };
             AnalysisResult result;
             try

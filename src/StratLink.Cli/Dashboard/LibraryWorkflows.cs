@@ -19,7 +19,7 @@ public sealed class LibraryWorkflows : IDashboardWorkflows
     /// <param name="analysisOptions">Settings of the record analysis for a project; null = library defaults,
     /// the project's age-model seed and <see cref="DefaultPeriodsYears"/>.</param>
     public LibraryWorkflows(Func<Project, AnalysisOptions>? analysisOptions = null) =>
-        _analysisOptions = analysisOptions ?? (p => new AnalysisOptions { Seed = p.AgeModel.Seed, PeriodsYears = DefaultPeriodsYears });
+        _analysisOptions = analysisOptions ?? (p => AnalysisOptions.ForCompositeRecord(p.AgeModel.Seed, DefaultPeriodsYears));
 
     public LoadedProject Load(string projectPath, CancellationToken cancellation) => ProjectLoader.Load(projectPath, cancellation);
 

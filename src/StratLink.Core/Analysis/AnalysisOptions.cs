@@ -33,4 +33,16 @@ public sealed record AnalysisOptions
 
     /// <summary>How far (years) a member's shift may lie from a median-run shift and still count as the same; null = l median spacings.</summary>
     public double? ShiftMatchWindowYears { get; init; }
+
+    /// <summary>
+    /// The settings both front ends start from for a composite of a multi-centennial to millennial
+    /// record: the regime test's long-record defaults (see <see cref="RegimeShiftOptions"/>).
+    /// </summary>
+    public static AnalysisOptions ForCompositeRecord(int seed, IReadOnlyList<double> periodsYears) => new()
+    {
+        Seed = seed,
+        PeriodsYears = periodsYears,
+        ShiftCutoffYears = RegimeShiftOptions.LongRecordCutoffYears,
+        Regimes = new RegimeShiftOptions { Probability = RegimeShiftOptions.LongRecordProbability, HuberParameter = RegimeShiftOptions.LongRecordHuber },
+    };
 }
