@@ -1,5 +1,6 @@
 using System.CommandLine;
 using StratLink.Checks;
+using StratLink.Model;
 using StratLink.Workflows;
 
 namespace StratLink.Cli.Commands;
@@ -32,6 +33,8 @@ internal static class BuildCommand
             int errors = result.Findings.Count(f => f.Severity == Severity.Error);
             int warnings = result.Findings.Count(f => f.Severity == Severity.Warning);
             ctx.Out.WriteLine($"{errors} error(s), {warnings} warning(s) in checks.csv.");
+            if (loaded.Project.Markers.Any(m => m.Kind is MarkerKind.Turbidite or MarkerKind.Flood or MarkerKind.Event))
+                ctx.Out.WriteLine("Caution: " + Dashboard.HelpText.EventLayerCaution);
             return errors > 0 ? ExitCodes.Findings : ExitCodes.Success;
         });
         return cmd;
