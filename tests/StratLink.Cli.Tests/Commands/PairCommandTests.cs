@@ -5,7 +5,7 @@ namespace StratLink.Tests.Commands;
 
 /// <summary>
 /// The pair verb end to end: tables written to temporary files, the command run in-process, its
-/// printed distance and written path compared with check values computed with the R package dtw
+/// printed distance and written path compared with check values (source: a general-purpose reference library) computed with the R package dtw
 /// 1.23-2 (Giorgino 2009, J. Stat. Softw. 31(7)) on R 4.2.2 with proxy 0.4-27, cases free of ties so
 /// paths match exactly; distances to 1e-12 (printed round-trip, values of order 1-30).
 /// </summary>

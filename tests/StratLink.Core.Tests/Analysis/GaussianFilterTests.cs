@@ -18,6 +18,7 @@ public class GaussianFilterTests
     [Fact]
     public void Constants_0_1874_IsHalfAmplitude_0_1325_IsHalfPower()
     {
+        // Source: the Gaussian kernel's Fourier transform (standard result; Rehfeld et al. 2011 use the kernel).
         // Gaussian low-pass gain exp(-2 pi^2 sigma^2 f^2) (the kernel's Fourier transform) equals 1/2 at
         // f = 0.1874/sigma (the value methods tables quote as "half power") and 1/sqrt 2, i.e. half the power,
         // at f = sqrt(ln 2 / 4 pi^2)/sigma = 0.1325/sigma.

@@ -7,7 +7,7 @@ public class OrderStatisticsTests
     [Fact]
     public void Percentiles_of_one_to_ten_match_R_quantile_type_7()
     {
-        // R: quantile(1:10, c(0.025, 0.5, 0.975), type = 7) gives 1.225, 5.5, 9.775
+        // Source: R's quantile(1:10, c(0.025, 0.5, 0.975), type = 7) gives 1.225, 5.5, 9.775
         // (Hyndman and Fan 1996 definition 7: h = (n-1)p, linear between order statistics).
         double[] shuffled = [7, 3, 10, 1, 9, 2, 8, 5, 4, 6];
         Assert.Equal(1.225, OrderStatistics.PercentileInPlace((double[])shuffled.Clone(), 2.5), 12);

@@ -56,7 +56,8 @@ public sealed class DemoSiteWriterTests : IDisposable
             {
                 if (i > 0) Assert.True(rows[i][0] > rows[i - 1][0]);
                 Assert.Equal(table.Depths[i], rows[i][0], 9);
-                // Written to 0.1 (ms) and 0.001 (density, ca_ti): half a unit of the last digit.
+                // No outside source: the tolerance is the writer's own rounding, to 0.1 (ms) and 0.001
+                // (density, ca_ti), i.e. half a unit of the last digit written.
                 Assert.Equal(table.Signals["ms"][i], rows[i][1], 0.05 + 1e-9);
                 Assert.Equal(table.Signals["density"][i], rows[i][2], 0.0005 + 1e-9);
                 Assert.Equal(table.Signals["ca_ti"][i], rows[i][3], 0.0005 + 1e-9);

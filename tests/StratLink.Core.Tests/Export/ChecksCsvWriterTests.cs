@@ -39,7 +39,7 @@ public sealed class ChecksCsvWriterTests
     public void DepthColumnNamesTheProjectUnitAndNumbersRoundTrip()
     {
         string csv = ToCsv([new Finding { Severity = Severity.Warning, Code = "c", Depth = 0.1 + 0.2, Message = "m" }], DepthUnit.Metre);
-        // "R" keeps every digit: 0.1 + 0.2 is 0.30000000000000004 in binary floating point.
+        // "R" keeps every digit: 0.1 + 0.2 is 0.30000000000000004 in IEEE 754 binary64 (the standard's round-trip text).
         Assert.Equal("severity,code,core,item,depth_m,message\nwarning,c,,,0.30000000000000004,m\n", csv);
     }
 }
