@@ -7,7 +7,7 @@ internal static class ProjectFiles
     public const string Full = """
         format: stratlink-project/1
         site:
-          name: Gullhaven Sound
+          name: Mirrowick Fjord
           latitude: 60.12
           longitude: 5.34
         depth_unit: cm
