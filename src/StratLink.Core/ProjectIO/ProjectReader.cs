@@ -129,10 +129,11 @@ public static class ProjectReader
             ctx.Problems.AddError(ProjectCodes.Syntax, cut >= 0 ? msg[(cut + 3)..] : msg, ctx.File, (int)e.Start.Line);
             return null;
         }
-        catch (InvalidOperationException)
+        catch (Exception e) when (e is InvalidOperationException or ArgumentException)
         {
             // The YAML library fails this way on some malformed input (a lone carriage return in a flow
-            // mapping, e.g. "a: {\rb: 1}" in YamlDotNet 18.1) instead of raising a YamlException.
+            // mapping, e.g. "a: {\rb: 1}" in YamlDotNet 18.1; "the current event is of an unsupported
+            // type" on a mutated block mapping found by the property tests) instead of a YamlException.
             ctx.Problems.AddError(ProjectCodes.Syntax, "the YAML cannot be read after this line (a stray control character or broken brackets?)", ctx.File, lastLine);
             return null;
         }

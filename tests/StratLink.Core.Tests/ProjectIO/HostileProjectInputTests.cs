@@ -13,69 +13,8 @@ namespace StratLink.Tests.ProjectIO;
 public sealed class HostileProjectInputTests(ITestOutputHelper output)
 {
     /// <summary>The example of the format spec, every section present.</summary>
-    internal const string ValidProject = """
-        format: stratlink-project/1
-        site:
-          name: Test Sound
-          latitude: 60.12
-          longitude: 5.34
-        depth_unit: cm
-        cores:
-          - id: GS-1
-            table: cores/GS-1.csv
-            depth_column: depth
-            signals: [ms, density, ca_ti]
-            gaps:
-              - [118.0, 121.5]
-            disturbed:
-              - [0, 4]
-            sections:
-              - {id: "1", top: 0}
-              - {id: "2", top: 150.0}
-          - id: GS-2
-            table: cores/GS-2.csv
-        markers:
-          - id: ash-2
-            kind: tephra
-            depths: {GS-1: 152.3, GS-2: 141.0}
-            uncertainty: 0.5
-        ages:
-          - id: c14-1
-            kind: radiocarbon
-            core: GS-1
-            depth: 88.5
-            c14_age: 2450
-            c14_error: 30
-            curve: curves/marine.14c
-            reservoir_offset: 120
-            reservoir_error: 40
-          - id: ash-2-age
-            kind: calendar
-            marker: ash-2
-            age: 4310
-            error: 25
-          - id: floating-varves
-            kind: varve-count
-            core: GS-2
-            table: cores/GS-2-varves.csv
-            anchor_depth: 0
-            anchor_age: -68
-            count_error: 0.02
-        alignment:
-          reference: GS-1
-          signals: {ms: 1.0, density: 0.5}
-          window: 0.15
-          ensemble: 200
-        composite:
-          step: 0.5
-          splice: auto
-        age_model:
-          iterations: 2000
-          seed: 42
-        checks:
-          rate_jump_factor: 4
-          tie_misfit_sigmas: 3
-        """;
+    // The full specification-shaped project of the reader tests, plus the checks section.
+    internal const string ValidProject = ProjectFiles.Full + "\nchecks:\n  rate_jump_factor: 4\n  tie_misfit_sigmas: 3";
 
     private static readonly string[] KeyFragments = ["format: ", "cores:\n", "markers:\n", "depths: ", "id: ", "kind: ", "ages:\n", "gaps:\n  - ", "depth_unit: mm\n"];
 
