@@ -31,16 +31,16 @@ public sealed class DotCanvas
         _bits[(y >> 2) * Columns + (x >> 1)] |= (byte)Bit[x & 1, y & 3];
     }
 
-    /// <summary>Dots along a straight line (Bresenham), ends included.</summary>
-    public void Line(int x0, int y0, int x1, int y1)
+    /// <summary>Dots along a straight line (Bresenham), ends included; with <paramref name="every"/> &gt; 1 only every n-th dot (a dotted line).</summary>
+    public void Line(int x0, int y0, int x1, int y1, int every = 1)
     {
         int dx = Math.Abs(x1 - x0), dy = -Math.Abs(y1 - y0);
         int sx = x0 < x1 ? 1 : -1, sy = y0 < y1 ? 1 : -1;
         int err = dx + dy;
         // Bounded by the line length, so a far-off end point cannot loop for long.
-        for (int guard = dx - dy + 1; guard >= 0; guard--)
+        for (int guard = dx - dy + 1, step = 0; guard >= 0; guard--, step++)
         {
-            Set(x0, y0);
+            if (step % every == 0) Set(x0, y0);
             if (x0 == x1 && y0 == y1) return;
             int e2 = 2 * err;
             if (e2 >= dy) { err += dy; x0 += sx; }

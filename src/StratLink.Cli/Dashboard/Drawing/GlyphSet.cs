@@ -14,6 +14,19 @@ public sealed record GlyphSet
     public required string Disturbed { get; init; }
     public required string Band { get; init; }
     public required string TieMark { get; init; }
+
+    /// <summary>The selected tie's mark: a different shape, not only a different colour.</summary>
+    public required string SelectedTieMark { get; init; }
+
+    /// <summary>Where a tie between two logs further apart passes a log that does not hold it.</summary>
+    public required string TieThrough { get; init; }
+
+    /// <summary>Before the active log's name; <see cref="PartnerLog"/> before the log new ties go to.</summary>
+    public required string ActiveLog { get; init; }
+    public required string PartnerLog { get; init; }
+
+    /// <summary>An age control left out of the age model (a hollow mark, where a used one is solid).</summary>
+    public required string ExcludedControlMark { get; init; }
     public required string ControlMark { get; init; }
     public required string ErrorBar { get; init; }
     public required string Separator { get; init; }
@@ -25,12 +38,14 @@ public sealed record GlyphSet
     public static readonly GlyphSet Utf8 = new()
     {
         Unicode = true, CurveInk = '*', Gap = "░", Disturbed = "▚", Band = "▒", TieMark = "◆",
+        SelectedTieMark = "◈", TieThrough = "┄", ActiveLog = "▸", PartnerLog = "⇔", ExcludedControlMark = "○",
         ControlMark = "●", ErrorBar = "─", Separator = "│", BarFull = "█", BarEmpty = "░", Up = "↑", Down = "↓",
     };
 
     public static readonly GlyphSet Ascii = new()
     {
         Unicode = false, CurveInk = '*', Gap = ":", Disturbed = "~", Band = ".", TieMark = "#",
+        SelectedTieMark = "@", TieThrough = "-", ActiveLog = ">", PartnerLog = "=", ExcludedControlMark = "x",
         ControlMark = "o", ErrorBar = "-", Separator = "|", BarFull = "#", BarEmpty = "-", Up = "Up", Down = "Dn",
     };
 

@@ -9,8 +9,9 @@ namespace StratLink.Cli.Dashboard.Views;
 /// <summary>
 /// The age-depth model on composite depth with its 95 % band and the controls with their error
 /// bars, above (or, on wide screens, beside) the list of controls with their calibrated ranges.
+/// The plot scrolls and zooms along composite depth with the keys of every plotting screen.
 /// </summary>
-public sealed class AgesView : DashView
+public sealed class AgesView : DashView, INavigable
 {
     private readonly DashboardState _state;
 
@@ -18,13 +19,67 @@ public sealed class AgesView : DashView
 
     public ListSelection Selection { get; } = new();
 
+    /// <summary>The plot's composite depth axis (project unit).</summary>
+    public AxisWindow DepthAxis { get; } = new();
+
     public AgeControlSpec? SelectedControl =>
         _state.Project.Ages.Count == 0 ? null : _state.Project.Ages[Math.Clamp(Selection.Selected, 0, _state.Project.Ages.Count - 1)];
 
     public void Move(int delta)
     {
         Selection.Move(delta, _state.Project.Ages.Count);
+        // The plot follows the selection to the control's depth when the run placed it.
+        if (SelectedControl is { } a && _state.Results?.Controls.FirstOrDefault(c => c.Id == a.Id)?.CompositeDepth is double d && FitAxis())
+            DepthAxis.MoveTo(d);
         SetNeedsDraw();
+    }
+
+    // ---- navigation (the same keys as the logs and the composite) ----------------------------
+
+    public string ScaleText => $"{FormatNumber(DepthAxis.PerRow)} {_state.Project.DepthUnit.Symbol()} per row";
+
+    public string JumpPrompt => $"Composite depth ({_state.Project.DepthUnit.Symbol()}), or an age with BP after it:";
+
+    public void MoveCursorRows(double rows) => Navigate(() => DepthAxis.MoveRows(rows));
+    public void PageRows(int direction) => Navigate(() => DepthAxis.Page(direction));
+    public void ToEnd(bool bottom) => Navigate(() => DepthAxis.ToEnd(bottom));
+    public void FitAll() => Navigate(DepthAxis.FitAll);
+
+    public bool Zoom(bool zoomIn)
+    {
+        bool zoomed = false;
+        Navigate(() => zoomed = DepthAxis.Zoom(zoomIn));
+        return zoomed;
+    }
+
+    public string? JumpTo(JumpTarget target)
+    {
+        if (_state.Results?.Ages is not { } curve || !FitAxis()) return "Age model not run yet (r runs alignment, ages and composite).";
+        double depth = target.Value;
+        if (target.Axis == JumpAxis.Age)
+        {
+            if (AgeLookup.CompositeDepthAt(curve, _state.Project, target.Value) is not double d)
+                return $"The age model does not reach {FormatNumber(target.Value)} cal BP.";
+            depth = d;
+        }
+        DepthAxis.MoveTo(depth);
+        SetNeedsDraw();
+        return null;
+    }
+
+    private void Navigate(Action move)
+    {
+        if (!FitAxis()) return;
+        move();
+        SetNeedsDraw();
+    }
+
+    /// <summary>Gives the axis the model's extent and the plot's rows; false before there is a model.</summary>
+    private bool FitAxis()
+    {
+        if (_state.Results?.Ages is not { } curve) return false;
+        DepthAxis.SetExtent(curve.TopCompositeDepth, curve.BottomCompositeDepth, Math.Max(2, PlotArea().Height - 2));
+        return true;
     }
 
     public int PageSize => Math.Max(1, ListArea().Height - 2);
@@ -68,16 +123,22 @@ public sealed class AgesView : DashView
         }
         const int axis = 7;
         int rows = area.Height - 2, cols = area.Width - axis - 1;
-        if (rows < 2 || cols < 4) return;
-        double top = curve.TopCompositeDepth, bottom = curve.BottomCompositeDepth;
-        double dotDepth = (bottom - top) / (rows * 4);
+        if (rows < 2 || cols < 4 || !FitAxis()) return;
+        double top = DepthAxis.Top, bottom = DepthAxis.Bottom;
+        double dotDepth = DepthAxis.PerRow / 4;
         var median = new double[rows * 4];
         var lo = new double[rows * 4];
         var hi = new double[rows * 4];
         double ageMin = double.PositiveInfinity, ageMax = double.NegativeInfinity;
         for (int y = 0; y < median.Length; y++)
         {
-            var (m, l, h) = curve.Scale.AgeAt(_state.Project.CompositeDepthOf(top + (y + 0.5) * dotDepth));
+            double at = top + (y + 0.5) * dotDepth;
+            if (at < curve.TopCompositeDepth || at > curve.BottomCompositeDepth)
+            {
+                (median[y], lo[y], hi[y]) = (double.NaN, double.NaN, double.NaN);
+                continue;
+            }
+            var (m, l, h) = curve.Scale.AgeAt(_state.Project.CompositeDepthOf(at));
             (median[y], lo[y], hi[y]) = (m, l, h);
             ageMin = Math.Min(ageMin, l);
             ageMax = Math.Max(ageMax, h);
@@ -94,9 +155,13 @@ public sealed class AgesView : DashView
         for (int r = 0; r < rows; r++)
         {
             double l = double.PositiveInfinity, h = double.NegativeInfinity;
-            for (int k = 0; k < 4; k++) { l = Math.Min(l, lo[r * 4 + k]); h = Math.Max(h, hi[r * 4 + k]); }
-            int c0 = Col(l), c1 = Col(h);
-            Fill(plotLeft + c0, area.Y + 1 + r, c1 - c0 + 1, Glyphs.Band, pal.Band);
+            for (int k = 0; k < 4; k++)
+                if (!double.IsNaN(lo[r * 4 + k])) { l = Math.Min(l, lo[r * 4 + k]); h = Math.Max(h, hi[r * 4 + k]); }
+            if (!double.IsInfinity(l))
+            {
+                int c0 = Col(l), c1 = Col(h);
+                Fill(plotLeft + c0, area.Y + 1 + r, c1 - c0 + 1, Glyphs.Band, pal.Band);
+            }
             if (r % 4 == 0) Put(area.X, area.Y + 1 + r, FormatNumber(top + r * 4 * dotDepth).PadLeft(6)[^6..], pal.Dim);
         }
         var canvas = new DotCanvas(cols, rows);
@@ -110,12 +175,19 @@ public sealed class AgesView : DashView
             bool excluded = _state.Project.Ages.FirstOrDefault(a => a.Id == c.Id)?.Exclude ?? false;
             var attr = excluded ? pal.Dim : pal.Tie;
             Fill(plotLeft + Col(c.AgeLoBP), area.Y + 1 + r, Col(c.AgeHiBP) - Col(c.AgeLoBP) + 1, Glyphs.ErrorBar, attr);
-            Put(plotLeft + Col(c.AgeMedianBP), area.Y + 1 + r, Glyphs.ControlMark, attr);
+            Put(plotLeft + Col(c.AgeMedianBP), area.Y + 1 + r, excluded ? Glyphs.ExcludedControlMark : Glyphs.ControlMark, attr);
         }
+        int cursorRow = DepthAxis.RowOf(DepthAxis.Cursor);
+        if (cursorRow >= 0 && cursorRow < rows) Put(area.X + 6, area.Y + 1 + cursorRow, Glyphs.Unicode ? "▶" : ">", pal.Strong);
         string axisText = $"{FormatNumber(ageMin)} cal BP";
         string right = $"{FormatNumber(ageMax)} cal BP";
         Put(plotLeft, area.Y + area.Height - 1, axisText, pal.Dim);
         Put(plotLeft + Math.Max(axisText.Length + 1, cols - right.Length), area.Y + area.Height - 1, right, pal.Dim);
+        // The cursor's depth and age between the axis ends.
+        var (cm, cl, ch) = curve.Scale.AgeAt(_state.Project.CompositeDepthOf(DepthAxis.Cursor));
+        string readout = $"{(Glyphs.Unicode ? "▶" : ">")} {FormatNumber(DepthAxis.Cursor)} {unit}: {FormatNumber(cm)} ({FormatNumber(cl)}..{FormatNumber(ch)})";
+        int room = cols - axisText.Length - right.Length - 2;
+        if (room > 8) Put(plotLeft + axisText.Length + 1 + Math.Max(0, (room - readout.Length) / 2), area.Y + area.Height - 1, readout, pal.Strong, room);
     }
 
     /// <summary>Controls the model could not place or date (unusable, undrawn) have no error bar to draw.</summary>

@@ -17,7 +17,10 @@ public abstract class DashView : View
 
     public GlyphSet Glyphs { get; }
 
-    protected Palette Colors => Palette.From(GetAttributeForRole(VisualRole.Normal));
+    /// <summary>Set by the window for every view: sixteen colours or monochrome.</summary>
+    public ColourMode ColourMode { get; set; }
+
+    protected Palette Colors => Palette.From(GetAttributeForRole(VisualRole.Normal), ColourMode);
 
     /// <summary>Writes <paramref name="text"/> at (x, y), cut at <paramref name="maxWidth"/> and the viewport edge.</summary>
     protected void Put(int x, int y, string text, Attribute attribute, int maxWidth = int.MaxValue)

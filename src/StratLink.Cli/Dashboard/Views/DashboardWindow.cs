@@ -39,7 +39,7 @@ public sealed class DashboardWindow : Runnable
     private WorkProgress _latestProgress;
 
     public DashboardWindow(IApplication app, DashboardState state, IDashboardWorkflows workflows, IPrompts prompts,
-        GlyphSet glyphs, RecoveryFile? recovery, RecentProjects? recent)
+        GlyphSet glyphs, RecoveryFile? recovery, RecentProjects? recent, ColourMode? colours = null)
     {
         _app = app;
         _state = state;
@@ -60,6 +60,9 @@ public sealed class DashboardWindow : Runnable
         _message = new MessageBar(glyphs) { X = 0, Y = Pos.AnchorEnd(2), Width = Dim.Fill() };
         _keys = new KeyLine(glyphs) { X = 0, Y = Pos.AnchorEnd(1), Width = Dim.Fill() };
         Add(_header, Logs, Ages, Composite, Findings, _message, _keys);
+        ColourMode = colours ?? ColourModes.FromEnvironment(Environment.GetEnvironmentVariable);
+        foreach (var view in SubViews.OfType<DashView>()) view.ColourMode = ColourMode;
+        _header.ShownCores = () => (Logs.Slots.Count, _state.Project.Cores.Count);
         _screens = new() { [Screen.Logs] = Logs, [Screen.Ages] = Ages, [Screen.Composite] = Composite, [Screen.Findings] = Findings };
 
         _handlers = Handlers();
@@ -67,10 +70,13 @@ public sealed class DashboardWindow : Runnable
         _state.ProjectEdited += OnProjectEdited;
         Show(_state.Loaded.Problems.HasErrors
             ? "The project has problems (4 lists them). F1 shows every key."
-            : "F1 shows every key. ] selects the next tie; t ties the cursors of two logs.");
+            : "F1 shows every key. ] selects the next tie; t ties the cursors of two logs (Space picks the partner).");
     }
 
     public GlyphSet Glyphs { get; }
+
+    /// <summary>Sixteen colours, or none when NO_COLOR is set (or the caller says so).</summary>
+    public ColourMode ColourMode { get; }
     public CorrelationView Logs { get; }
     public AgesView Ages { get; }
     public CompositeView Composite { get; }
@@ -119,22 +125,29 @@ public sealed class DashboardWindow : Runnable
         [DashCommand.Save] = () => Save(),
         [DashCommand.Export] = Export,
         [DashCommand.Quit] = Quit,
-        [DashCommand.CursorUp] = () => Logs.MoveCursorRows(-1),
-        [DashCommand.CursorDown] = () => Logs.MoveCursorRows(1),
-        [DashCommand.FineUp] = () => Logs.MoveCursorRows(-0.25),
-        [DashCommand.FineDown] = () => Logs.MoveCursorRows(0.25),
-        [DashCommand.PageUp] = () => Logs.PageRows(-1),
-        [DashCommand.PageDown] = () => Logs.PageRows(1),
-        [DashCommand.Top] = () => Logs.ToEnd(bottom: false),
-        [DashCommand.Bottom] = () => Logs.ToEnd(bottom: true),
-        [DashCommand.PreviousLog] = () => Logs.ShiftActive(-1),
-        [DashCommand.NextLog] = () => Logs.ShiftActive(1),
+        [DashCommand.CursorUp] = () => Navigable()?.MoveCursorRows(-1),
+        [DashCommand.CursorDown] = () => Navigable()?.MoveCursorRows(1),
+        [DashCommand.FineUp] = () => Navigable()?.MoveCursorRows(-0.25),
+        [DashCommand.FineDown] = () => Navigable()?.MoveCursorRows(0.25),
+        [DashCommand.PageUp] = () => Navigable()?.PageRows(-1),
+        [DashCommand.PageDown] = () => Navigable()?.PageRows(1),
+        [DashCommand.Top] = () => Navigable()?.ToEnd(bottom: false),
+        [DashCommand.Bottom] = () => Navigable()?.ToEnd(bottom: true),
         [DashCommand.ZoomIn] = () => Zoom(true),
         [DashCommand.ZoomOut] = () => Zoom(false),
+        [DashCommand.GoTo] = GoTo,
+        [DashCommand.FitAll] = FitAll,
+        [DashCommand.PreviousLog] = () => Logs.ShiftActive(-1),
+        [DashCommand.NextLog] = () => Logs.ShiftActive(1),
         [DashCommand.NextSignal] = NextSignal,
         [DashCommand.NextCore] = () => Show(Logs.NextCore() is { } c ? $"Showing core {c}." : "Every core is shown already."),
-        [DashCommand.MoreLogs] = () => Show(Logs.MoreLogs() ? $"{Logs.Slots.Count} logs." : "No more logs: four at most, each a different core."),
+        [DashCommand.MoreLogs] = () => Show(Logs.MoreLogs() ? $"{Logs.Slots.Count} logs." : $"No more logs: every core is shown, or {Logs.FittingLogs} fill the width (< and > show the others)."),
         [DashCommand.FewerLogs] = () => Show(Logs.FewerLogs() ? $"{Logs.Slots.Count} logs." : "Two logs stay."),
+        [DashCommand.PreviousCores] = () => Show(Logs.PageCores(-1) ? CoresShown() : "These are the first cores of the site."),
+        [DashCommand.NextCores] = () => Show(Logs.PageCores(1) ? CoresShown() : "These are the last cores of the site."),
+        [DashCommand.TogglePartner] = () => Show(Logs.TogglePartner() is { } core
+            ? $"New ties go from the active log to {core}; Space on it again goes back to the neighbouring log."
+            : "New ties go to the neighbouring log."),
         [DashCommand.LineUp] = LineUp,
         [DashCommand.AddTie] = AddTie,
         [DashCommand.NextTie] = () => SelectTie(1),
@@ -144,11 +157,16 @@ public sealed class DashboardWindow : Runnable
         [DashCommand.RenameTie] = () => WithTie(id => _prompts.AskText($"Rename tie {id}", "New name (letters, digits, . _ -):", id) is { } name
             ? TieEdits.RenameTie(_state.Project, id, name) : null),
         [DashCommand.TieKind] = () => WithTie(ChooseKind),
-        [DashCommand.ListUp] = () => MoveList(-1),
-        [DashCommand.ListDown] = () => MoveList(1),
-        [DashCommand.ListPageUp] = () => MoveList(-(Current == Screen.Ages ? Ages.PageSize : Findings.PageSize)),
-        [DashCommand.ListPageDown] = () => MoveList(Current == Screen.Ages ? Ages.PageSize : Findings.PageSize),
+        [DashCommand.ListUp] = () => Findings.Move(-1),
+        [DashCommand.ListDown] = () => Findings.Move(1),
+        [DashCommand.ListPageUp] = () => Findings.Move(-Findings.PageSize),
+        [DashCommand.ListPageDown] = () => Findings.Move(Findings.PageSize),
+        [DashCommand.NextControl] = () => Ages.Move(1),
+        [DashCommand.PreviousControl] = () => Ages.Move(-1),
         [DashCommand.ToggleExclude] = ToggleExclude,
+        [DashCommand.ToggleStacked] = () => Show(Composite.ToggleStacked() ? "Every signal side by side." : "One signal (v shows the next)."),
+        [DashCommand.FilterSeverity] = () => Show($"Findings shown: {Findings.CycleSeverity()}."),
+        [DashCommand.FilterCore] = () => Show($"Findings shown: {Findings.CycleCore()}."),
         [DashCommand.ToggleAxis] = () => Show(Composite.ToggleAxis()
             ? (Composite.AgeAxis ? "Composite against age." : "Composite against composite depth.")
             : "No age model in these results: the composite stays on composite depth.", MessageLevel.Info),
@@ -252,11 +270,43 @@ public sealed class DashboardWindow : Runnable
         Show("q quits; F1 shows every key.");
     }
 
+    /// <summary>The plotting screen shown, which the navigation keys act on.</summary>
+    private INavigable? Navigable() => Current switch
+    {
+        Screen.Logs => Logs,
+        Screen.Ages => Ages,
+        Screen.Composite => Composite,
+        _ => null,
+    };
+
     private void Zoom(bool zoomIn)
     {
-        Logs.Zoom(zoomIn);
-        Show($"{Logs.DepthPerRow.ToString("0.###", CultureInfo.InvariantCulture)} {_state.Project.DepthUnit.Symbol()} per row.");
+        if (Navigable() is not { } nav) return;
+        bool zoomed = nav.Zoom(zoomIn);
+        Show(zoomed ? $"{Capitalise(nav.ScaleText)}." : $"{Capitalise(nav.ScaleText)}: {(zoomIn ? "the closest" : "the widest")} step already.");
     }
+
+    private void GoTo()
+    {
+        if (Navigable() is not { } nav) return;
+        if (_prompts.AskText("Go to", nav.JumpPrompt, "") is not { } text) return;
+        if (JumpTarget.Parse(text) is not { } target)
+        {
+            Show($"Not a depth or an age: '{text}' (a number, with BP after it for an age).", MessageLevel.Warning);
+            return;
+        }
+        if (nav.JumpTo(target) is { } why) Show(why, MessageLevel.Warning);
+        else Show($"At {text.Trim()}; f fits the whole record again.");
+    }
+
+    private void FitAll()
+    {
+        if (Navigable() is not { } nav) return;
+        nav.FitAll();
+        Show($"The whole record: {nav.ScaleText}.");
+    }
+
+    private string CoresShown() => $"{Logs.Slots.Count} of {_state.Project.Cores.Count} cores shown: {string.Join(", ", Logs.Slots.Select(s => s.CoreId))}.";
 
     private void NextSignal()
     {
@@ -269,11 +319,6 @@ public sealed class DashboardWindow : Runnable
         var alignment = _state.ResultsState == ResultsState.Current ? _state.Results?.Alignment : null;
         bool used = Logs.LineUp(alignment);
         Show(used ? "Cursors at the depths the alignment matches." : "Cursors at the same depth (no current alignment).");
-    }
-
-    private void MoveList(int delta)
-    {
-        if (Current == Screen.Ages) Ages.Move(delta); else Findings.Move(delta);
     }
 
     private void GoToFinding()

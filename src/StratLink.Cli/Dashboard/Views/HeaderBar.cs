@@ -18,6 +18,9 @@ public sealed class HeaderBar : DashView
 
     public Screen Current { get; set; }
 
+    /// <summary>How many of the site's cores the logs show, for "k of n cores shown" on the tab row.</summary>
+    public Func<(int Shown, int Total)>? ShownCores { get; set; }
+
     public static string SavedText(DashboardState state) => state.IsSaved ? "saved" : "UNSAVED edits";
 
     public static string ResultsText(ResultsState results) => results switch
@@ -68,6 +71,11 @@ public sealed class HeaderBar : DashView
             string tab = $" {(int)screen + 1} {screen.Title()} ";
             Put(x, 1, tab, screen == Current ? pal.ActiveHeader : pal.Dim);
             x += tab.Length + 1;
+        }
+        if (ShownCores?.Invoke() is var (shown, total) && total > 0)
+        {
+            string cores = $"{shown} of {total} cores shown ";
+            if (x + cores.Length <= w) Put(w - cores.Length, 1, cores, shown < total ? pal.Warning : pal.Normal);
         }
         return true;
     }

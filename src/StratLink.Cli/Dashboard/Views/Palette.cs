@@ -1,9 +1,13 @@
+using StratLink.Cli.Dashboard.Drawing;
 using Terminal.Gui.Drawing;
 using Attribute = Terminal.Gui.Drawing.Attribute;
 
 namespace StratLink.Cli.Dashboard.Views;
 
-/// <summary>The dashboard's colours, all on the theme's normal background so they read on dark and light terminals.</summary>
+/// <summary>
+/// The dashboard's colours, all on the theme's normal background so they read on dark and light
+/// terminals; only the sixteen named colours, or none in <see cref="ColourMode.Monochrome"/>.
+/// </summary>
 public sealed record Palette
 {
     public required Attribute Normal { get; init; }
@@ -22,7 +26,34 @@ public sealed record Palette
     public required Attribute Warning { get; init; }
     public required Attribute Error { get; init; }
 
-    public static Palette From(Attribute normal)
+    public static Palette From(Attribute normal, ColourMode mode = ColourMode.Sixteen) =>
+        mode == ColourMode.Monochrome ? Monochrome(normal) : Sixteen(normal);
+
+    private static Palette Monochrome(Attribute normal)
+    {
+        Color fg = normal.Foreground, bg = normal.Background;
+        Attribute Styled(TextStyle style) => new(fg, bg, style);
+        return new Palette
+        {
+            Normal = normal,
+            Dim = normal,
+            Strong = Styled(TextStyle.Bold),
+            Curve = normal,
+            Band = normal,
+            Gap = normal,
+            Disturbed = normal,
+            Tie = Styled(TextStyle.Bold),
+            SelectedTie = Styled(TextStyle.Bold | TextStyle.Underline),
+            Alignment = normal,
+            CursorRow = Styled(TextStyle.Reverse),
+            Header = Styled(TextStyle.Bold),
+            ActiveHeader = Styled(TextStyle.Reverse | TextStyle.Bold),
+            Warning = Styled(TextStyle.Bold),
+            Error = Styled(TextStyle.Bold | TextStyle.Underline),
+        };
+    }
+
+    private static Palette Sixteen(Attribute normal)
     {
         Color bg = normal.Background;
         return new Palette
@@ -44,4 +75,8 @@ public sealed record Palette
             Error = new Attribute(Color.BrightRed, bg, TextStyle.Bold),
         };
     }
+
+    /// <summary>Every attribute of the palette, for checks over all of them.</summary>
+    public IEnumerable<Attribute> All() =>
+        [Normal, Dim, Strong, Curve, Band, Gap, Disturbed, Tie, SelectedTie, Alignment, CursorRow, Header, ActiveHeader, Warning, Error];
 }
