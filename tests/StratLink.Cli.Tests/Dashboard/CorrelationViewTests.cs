@@ -12,7 +12,7 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
     private static bool IsBraille(string g) => g.Length == 1 && g[0] is >= '\u2801' and <= '\u28FF';
 
     [Fact]
-    public void Draws_two_logs_with_header_and_keys_at_80x24()
+    public void Draws_every_core_with_header_site_strip_and_keys_at_80x24()
     {
         using var project = new TestProject();
         using var h = new DashboardHarness(project);
@@ -22,15 +22,22 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         Assert.Contains("saved", h.Row(0));
         Assert.Contains("not run yet", h.Row(0));
         Assert.Contains("1 Logs", h.Row(1));
-        Assert.Contains("T-1 · ms", h.Row(2));
-        Assert.Contains("T-2 · ms", h.Row(2));
+        Assert.Contains("3 of 3 cores shown", h.Row(1));
+        // The site strip lists every core with its depth span, the shown ones in brackets.
+        Assert.Contains("[T-1 0-200] [T-2 0-200] [T-3 0-200]", h.Row(2));
+        Assert.Contains("▸T-1 · ms", h.Row(3));
+        Assert.Contains("T-2 · ms", h.Row(3));
+        Assert.Contains("T-3 · ms", h.Row(3));
         Assert.StartsWith(" F1 Keys", h.Row(23));
+        Assert.Contains("+/- Zoom", h.Row(23));
         Assert.Contains("q Quit", h.Row(23));
-        // The plot area of the first log (columns 7..36, rows 3..20) holds braille curve cells.
-        int curveCells = Enumerable.Range(3, 18).Sum(r => Enumerable.Range(7, 30).Count(c => IsBraille(h.Cell(r, c))));
+        // The plot area of the first log (columns 7..23, rows 4..19) holds braille curve cells.
+        int curveCells = Enumerable.Range(4, 16).Sum(r => Enumerable.Range(7, 17).Count(c => IsBraille(h.Cell(r, c))));
         Assert.True(curveCells > 30, $"only {curveCells} braille cells in the first log");
-        // Readout row: cursor depth and value.
-        Assert.Contains("0.00 cm", h.Row(21));
+        // Readout row: cursor depth and value; the detail line gives the active log's value range.
+        Assert.Contains("0.00 cm", h.Row(20));
+        Assert.Contains("T-1 ms", h.Row(21));
+        Assert.Contains("% clipped", h.Row(21));
     }
 
     [Fact]
@@ -38,15 +45,15 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
     {
         using var project = new TestProject();
         using var h = new DashboardHarness(project);
-        // 20 cm per row (200 cm core in 18 rows, next 1-2-5 step): T-2's gap 80-85 cm is plot row 4 (screen row 7),
-        // T-1's disturbed 0-4 cm is plot row 0 (screen row 3).
+        // 20 cm per row (200 cm core in 16 rows, next 1-2-5 step): T-2's gap 80-85 cm is plot row 4 (screen row 8),
+        // T-1's disturbed 0-4 cm is plot row 0 (screen row 4). Three logs: 7 axis + 17 plot + 4 gutter columns each.
         Assert.Equal(20, h.Window.Logs.DepthPerRow);
-        Assert.Contains("░", h.Row(7)[43..]);
-        Assert.Contains("▚", h.Row(3)[..37]);
-        // ash-1 at 50 cm in T-1: row 2 (screen 5); tie mark in the axis column 6.
-        Assert.Equal("◆", h.Cell(5, 6));
-        // The tie line crosses the gutter (columns 37..42) between the logs on that row.
-        Assert.Contains(Enumerable.Range(37, 6), c => IsBraille(h.Cell(5, c)));
+        Assert.Contains("░", h.Row(8)[35..52]);
+        Assert.Contains("▚", h.Row(4)[..24]);
+        // ash-1 at 50 cm in T-1: row 2 (screen 6); tie mark in the axis column 6.
+        Assert.Equal("◆", h.Cell(6, 6));
+        // The tie line crosses the gutter (columns 24..27) between the logs on that row.
+        Assert.Contains(Enumerable.Range(24, 4), c => IsBraille(h.Cell(6, c)));
     }
 
     [Fact]
@@ -56,7 +63,7 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         using var h = new DashboardHarness(project, 160, 48);
         output.WriteLine(h.ScreenText);
         Assert.Equal(3, h.Window.Logs.Slots.Count);
-        Assert.Contains("T-3 · ms", h.Row(2));
+        Assert.Contains("T-3 · ms", h.Row(3));
         Assert.Contains("not run yet", h.Row(0));
     }
 
@@ -68,8 +75,8 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         string screen = h.ScreenText;
         output.WriteLine(screen);
         Assert.DoesNotContain(screen, ch => ch > '\u007f');
-        Assert.Contains("*", h.Row(5));
-        Assert.Equal("#", h.Cell(5, 6));
+        Assert.Contains("*", h.Row(6));
+        Assert.Equal("#", h.Cell(6, 6));
     }
 
     [Fact]
@@ -84,7 +91,7 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         Assert.Equal(5, h.Window.Logs.DepthPerRow);
         int row = (int)Math.Floor((slot.Cursor - slot.Top) / h.Window.Logs.DepthPerRow);
         Assert.InRange(row, 0, h.Window.Logs.PlotRows - 1);
-        Assert.Contains("200.00 cm", h.Row(21));
+        Assert.Contains("200.00 cm", h.Row(20));
         h.Press(Key.Home);
         Assert.Equal(0, slot.Cursor);
         Assert.Equal(0, slot.Top);
@@ -95,7 +102,7 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
     {
         using var project = new TestProject();
         using var h = new DashboardHarness(project);
-        int Gutter() => Enumerable.Range(3, 18).Sum(r => Enumerable.Range(37, 6).Count(c => IsBraille(h.Cell(r, c))));
+        int Gutter() => Enumerable.Range(4, 16).Sum(r => Enumerable.Range(24, 4).Count(c => IsBraille(h.Cell(r, c))));
         int before = Gutter();
         h.State.SetResults(TestResults.Full(project.Loaded));
         h.App.LayoutAndDraw();
@@ -122,7 +129,7 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         Assert.Equal(Screen.Logs, h.Window.Current);
         Assert.Equal("T-3", h.Window.Logs.ActiveSlot!.CoreId);
         Assert.Equal(82, h.Window.Logs.ActiveSlot!.Cursor);
-        Assert.Contains("T-3 · ms", h.Row(2));
+        Assert.Contains("T-3 · ms", h.Row(3));
         Assert.Contains("82.00 cm", h.ScreenText);
     }
 }

@@ -121,7 +121,8 @@ public sealed class TieEditingKeyTests
         using var h = new DashboardHarness(project);
         h.Type("2");
         Assert.Contains("Age model not run yet", h.ScreenText);
-        h.Press(Key.CursorDown, Key.Space);
+        h.Type("]");
+        h.Press(Key.Space);
         Assert.True(h.State.Project.Ages.Single(a => a.Id == "top").Exclude);
         Assert.Contains(h.ScreenText.Split('\n'), l => l.StartsWith(" out top "));
         h.Type("u");

@@ -118,7 +118,8 @@ public sealed class CorrelationView : DashView, INavigable
         if (!EnsureFitted()) return false;
         double next = zoomIn ? NiceStep(DepthPerRow, -1) : NiceStep(DepthPerRow, +1);
         double maxRange = _slots.Select(s => CoreRange(s.CoreId)).Select(r => r.Bottom - r.Top).DefaultIfEmpty(1).Max();
-        if (next < 0.001 || next > Math.Max(maxRange, 1)) return false;
+        // Out no further than the whole longest core on screen, as fit all shows it.
+        if (next < 0.001 || next > NiceAtLeast(Math.Max(maxRange, 1e-3) / PlotRows) * (1 + 1e-9)) return false;
         foreach (var slot in _slots)
         {
             double row = (slot.Cursor - slot.Top) / DepthPerRow;
