@@ -5,7 +5,8 @@ namespace StratLink.Tests.EndToEnd;
 
 /// <summary>
 /// The dashboard in a real terminal: tests/e2e/dashboard-tmux.sh drives the built program under tmux
-/// (open the demo, tie, run, check the ages and composite screens, save, quit) at 80x24 and 160x48.
+/// (every core on the first screen, a tie between the first and last core, run, ages, the composite
+/// scrolled to its deepest part and zoomed, the longest finding in full, save, quit) at 80x24 and 200x60.
 /// In the TerminalGui collection so no headless UI test shares the machine's two cores meanwhile.
 /// </summary>
 [Collection("TerminalGui")]

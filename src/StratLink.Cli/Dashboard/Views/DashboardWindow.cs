@@ -70,7 +70,7 @@ public sealed class DashboardWindow : Runnable
         _state.ProjectEdited += OnProjectEdited;
         Show(_state.Loaded.Problems.HasErrors
             ? "The project has problems (4 lists them). F1 shows every key."
-            : "F1 shows every key. ] selects the next tie; t ties the cursors of two logs (Space picks the partner).");
+            : "F1 shows every key; ] selects a tie, t ties the cursors of two logs.");
     }
 
     public GlyphSet Glyphs { get; }
