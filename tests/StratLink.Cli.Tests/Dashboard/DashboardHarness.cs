@@ -18,7 +18,7 @@ internal sealed class DashboardHarness : IDisposable
     private readonly SessionToken? _token;
 
     public DashboardHarness(TestProject project, int width = 80, int height = 24, GlyphSet? glyphs = null, bool begin = true,
-        IDashboardWorkflows? workflows = null)
+        IDashboardWorkflows? workflows = null, ColourMode colours = ColourMode.Sixteen)
     {
         Project = project;
         App = Application.Create();
@@ -28,7 +28,7 @@ internal sealed class DashboardHarness : IDisposable
         Workflows = new TestWorkflows(project.Loaded);
         Prompts = new ScriptedPrompts();
         Recovery = new RecoveryFile(project.FilePath);
-        Window = new DashboardWindow(App, State, workflows ?? Workflows, Prompts, glyphs ?? GlyphSet.Utf8, Recovery, null);
+        Window = new DashboardWindow(App, State, workflows ?? Workflows, Prompts, glyphs ?? GlyphSet.Utf8, Recovery, null, colours);
         if (begin)
         {
             _token = App.Begin(Window);
