@@ -9,7 +9,7 @@ namespace StratLink.Tests.Dashboard;
 [Collection("TerminalGui")]
 public sealed class CorrelationViewTests(ITestOutputHelper output)
 {
-    private static bool IsBraille(string g) => g.Length == 1 && g[0] is >= '\u2801' and <= '\u28FF';
+    internal static bool IsBraille(string g) => g.Length == 1 && g[0] is >= '\u2801' and <= '\u28FF';
 
     [Fact]
     public void Draws_every_core_with_header_site_strip_and_keys_at_80x24()

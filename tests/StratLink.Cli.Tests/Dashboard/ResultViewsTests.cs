@@ -48,6 +48,28 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Composite_screen_stacks_every_signal_side_by_side()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        var results = TestResults.Full(project.Loaded);
+        var ms = results.Composite!.Signals[0];
+        var density = ms with { Name = "density", Mean = ms.Mean.Select(v => 1.5 + 0.1 * v).ToArray() };
+        h.State.SetResults(results with { Composite = results.Composite with { Signals = [ms, density] } });
+        h.Type("3");
+        h.Type("m");
+        output.WriteLine(h.ScreenText);
+        Assert.Contains("Composite all signals (mean and 95% band)", h.Row(2));
+        // Each panel has its own value range; both are listed under the plot.
+        Assert.Matches(@"ms -?[0-9.]+\.\.[0-9.]+ +density 1\.[0-9]+\.\.1\.[0-9]+", h.ScreenText);
+        // Two panels of curve cells, left and right of the middle.
+        int Braille(int from, int to) => Enumerable.Range(3, 14).Sum(r => Enumerable.Range(from, to - from).Count(c => CorrelationViewTests.IsBraille(h.Cell(r, c))));
+        Assert.True(Braille(10, 44) > 10 && Braille(45, 78) > 10, "the two panels are not both drawn");
+        h.Type("m");
+        Assert.Contains("Composite ms (mean", h.Row(2));
+    }
+
+    [Fact]
     public void Findings_screen_lists_file_problems_with_their_place()
     {
         using var project = new TestProject();

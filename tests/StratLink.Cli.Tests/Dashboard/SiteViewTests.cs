@@ -1,6 +1,3 @@
-using StratLink.Checks;
-using StratLink.Cli.Dashboard;
-using StratLink.Cli.Dashboard.Drawing;
 using StratLink.Cli.Dashboard.Views;
 using Terminal.Gui.Input;
 using Xunit.Abstractions;
@@ -30,8 +27,6 @@ public sealed class SiteViewTests(ITestOutputHelper output)
           - id: all
             depths: { {{string.Join(", ", Enumerable.Range(1, cores).Select(i => $"T-{i}: 150"))}} }
         """;
-
-    private static bool IsBraille(string g) => g.Length == 1 && g[0] is >= '\u2801' and <= '\u28FF';
 
     [Fact]
     public void Six_cores_are_all_on_the_first_screen_at_80x24()
@@ -76,7 +71,7 @@ public sealed class SiteViewTests(ITestOutputHelper output)
         for (int g = 0; g < 5; g++)
         {
             int x = layout.GutterLeft(g);
-            Assert.True(Enumerable.Range(x, 2).Any(c => IsBraille(h.Cell(6, c)) || IsBraille(h.Cell(7, c))), $"no tie line in gutter {g}");
+            Assert.True(Enumerable.Range(x, 2).Any(c => CorrelationViewTests.IsBraille(h.Cell(6, c)) || CorrelationViewTests.IsBraille(h.Cell(7, c))), $"no tie line in gutter {g}");
         }
         for (int log = 1; log < 5; log++)
             Assert.True(h.Cell(6, layout.SlotLeft(log) + 6) == "┄" || h.Cell(7, layout.SlotLeft(log) + 6) == "┄", $"no pass mark in log {log}");
