@@ -1,4 +1,6 @@
+using StratLink.Alignment;
 using StratLink.Cli.Dashboard.Views;
+using StratLink.Quantities;
 using Terminal.Gui.Input;
 using Xunit.Abstractions;
 
@@ -96,6 +98,26 @@ public sealed class SiteViewTests(ITestOutputHelper output)
         Assert.Contains("tie-1 other ±0 cm: T-1 80, T-6 0", h.Row(21));
         Assert.Equal("◈", h.Cell(8, 6));
         Assert.Equal("◈", h.Cell(4, LogLayout.For(80, 6).SlotLeft(5) + 6));
+    }
+
+    [Fact]
+    public void Alignment_lines_join_the_active_log_to_a_partner_further_on()
+    {
+        using var project = new TestProject(yaml: Site(6));
+        using var h = new DashboardHarness(project);
+        // T-1..T-5 map by identity; T-6 sits 60 cm deeper on the composite scale, so its lines to T-1 slope.
+        var mappings = Enumerable.Range(1, 6).ToDictionary(i => $"T-{i}", i => new MappingEnsemble(i < 6
+            ? DepthMapping.Identity($"T-{i}", DepthUnit.Centimetre, 0, 200)
+            : new DepthMapping("T-6", DepthUnit.Centimetre, [0, 200], [60, 260]), []));
+        h.State.SetResults(TestResults.Full(project.Loaded) with { Alignment = new AlignmentResult("T-1", "ties", mappings) });
+        var layout = LogLayout.For(80, 6);
+        int Inked(int gutter) => Enumerable.Range(4, 16).Sum(r => Enumerable.Range(layout.GutterLeft(gutter), 2).Count(c => CorrelationViewTests.IsBraille(h.Cell(r, c))));
+        h.App.LayoutAndDraw();
+        int before = Inked(2);
+        for (int i = 0; i < 5; i++) h.Press(Key.CursorRight);
+        h.Press(Key.Space);
+        for (int i = 0; i < 5; i++) h.Press(Key.CursorLeft);
+        Assert.True(Inked(2) > before, $"the middle gutter has {Inked(2)} inked cells with the partner T-6, {before} without");
     }
 
     // Leave-one-out by hand: without a-2, a-1 (10 -> 12) and a-3 (100 -> 110) put 50 cm of T-1 at

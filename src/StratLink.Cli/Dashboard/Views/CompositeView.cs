@@ -193,8 +193,9 @@ public sealed class CompositeView : DashView, INavigable
 
         int footer = rows + 1;
         string cursor = $"{(Glyphs.Unicode ? "▶" : ">")} {Number(axis.Cursor)} {(byAge ? "cal BP" : unit)}";
-        Put(1, footer, Fit(cursor, plotLeft - 1), pal.Strong);
-        Put(plotLeft, footer, string.Join("  ", footerRanges), pal.Dim, cols);
+        Put(1, footer, cursor, pal.Strong);
+        int rangesLeft = Math.Max(plotLeft, cursor.Length + 3);
+        Put(rangesLeft, footer, string.Join("  ", footerRanges), pal.Dim, vp.Width - rangesLeft);
         string legend = "splice: " + string.Join(" ", coreIndex.Select((c, i) => $"{SpliceLabel(i).Trim()}={c}"));
         Put(1, footer + 1, legend, pal.Normal, vp.Width - 1);
         var notes = composite.Analysis.Where(n => n.Signal == signal.Name).ToList();
