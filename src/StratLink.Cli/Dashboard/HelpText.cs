@@ -17,8 +17,18 @@ public static class HelpText
         void Section(string title, IEnumerable<KeyEntry> entries)
         {
             lines.Add("## " + title);
-            foreach (var e in entries) lines.Add($"  {e.KeysText,-18} {e.Help}");
+            foreach (var e in entries) Legend(e.KeysText, e.Help);
             lines.Add("");
+        }
+        // A mark and what it means, the meaning wrapped beside the mark's column so every line fits 80 columns.
+        void Legend(string mark, string meaning)
+        {
+            var parts = Wrap(meaning, 55).ToList();
+            for (int i = 0; i < parts.Count; i++) lines.Add($"  {(i == 0 ? mark : ""),-18} {parts[i]}");
+        }
+        void Paragraph(string text)
+        {
+            foreach (string part in Wrap(text, 76)) lines.Add("  " + part);
         }
         Section("Everywhere", KeyTable.Entries.Where(e => e.Everywhere));
         foreach (var screen in Screens.All)
@@ -27,33 +37,30 @@ public static class HelpText
             if (entries.Count > 0) Section($"On the {screen.Title()} screen", entries);
         }
         lines.Add("## What the logs show");
-        lines.Add($"  {"[P1 0-880]",-18} the strip above the logs: every core with its depth span; the shown ones in brackets");
-        lines.Add($"  {(glyphs.Unicode ? "⡇⠸ braille dots" : "* stars"),-18} the signal, min to max in each dot row, on its 2-98 % range (the clipped share is below the logs)");
-        lines.Add($"  {glyphs.Gap,-18} gap: no recovery, nothing known");
-        lines.Add($"  {glyphs.Disturbed,-18} disturbed: left out of alignment and splice");
-        lines.Add($"  {glyphs.TieMark + " " + glyphs.SelectedTieMark,-18} a tie (marker layer) in this core, the selected tie; solid lines join it across logs");
-        lines.Add($"  {glyphs.TieThrough,-18} a tie passing a log that does not hold it, on its way to a log further on");
-        lines.Add($"  {"dotted lines",-18} the alignment: which depths correspond after the last run");
-        lines.Add($"  {(glyphs.Unicode ? "▶" : ">"),-18} the depth cursor; the active log's cursor row is highlighted");
-        lines.Add($"  {glyphs.ActiveLog + " " + glyphs.PartnerLog,-18} before the active log's name, and before the partner that new ties go to");
+        Legend("[P1 0-880]", "the strip above the logs: every core with its depth span; the shown ones in brackets");
+        Legend(glyphs.Unicode ? "⡇⠸ braille dots" : "* stars", "the signal, min to max in each dot row, on its 2-98 % range (the clipped share is below the logs)");
+        Legend(glyphs.Gap, "gap: no recovery, nothing known");
+        Legend(glyphs.Disturbed, "disturbed: left out of alignment and splice");
+        Legend(glyphs.TieMark + " " + glyphs.SelectedTieMark, "a tie (marker layer) in this core, the selected tie; solid lines join it across logs");
+        Legend(glyphs.TieThrough, "a tie passing a log that does not hold it, on its way to a log further on");
+        Legend("dotted lines", "the alignment: which depths correspond after the last run");
+        Legend(glyphs.Unicode ? "▶" : ">", "the depth cursor; the active log's cursor row is highlighted");
+        Legend(glyphs.ActiveLog + " " + glyphs.PartnerLog, "before the active log's name, and before the partner that new ties go to");
         lines.Add("");
         lines.Add("## What the ages and composite show (after r)");
-        lines.Add($"  {glyphs.Band,-18} 95 % band: ages over the model's members, composite over cores");
-        lines.Add($"  {glyphs.ErrorBar + glyphs.ControlMark + glyphs.ErrorBar,-18} an age control: given (calibrated) age and its 95 % range ({glyphs.ExcludedControlMark} when left out)");
-        lines.Add($"  {"A B strip",-18} the splice: the core each depth is taken from (legend below)");
-        lines.Add($"  {(glyphs.Unicode ? "◀" : "<"),-18} a regime shift found by p (listed below with the periods)");
+        Legend(glyphs.Band, "95 % band: ages over the model's members, composite over cores");
+        Legend(glyphs.ErrorBar + glyphs.ControlMark + glyphs.ErrorBar, $"an age control: given (calibrated) age and its 95 % range ({glyphs.ExcludedControlMark} when left out)");
+        Legend("A B strip", "the splice: the core each depth is taken from (legend below)");
+        Legend(glyphs.Unicode ? "◀" : "<", "a regime shift found by p (listed below with the periods)");
         lines.Add("");
         lines.Add("## Colour");
-        lines.Add("  Sixteen colours, or none when NO_COLOR is set; every mark above is a glyph or a");
-        lines.Add("  letter as well, so nothing is lost in monochrome.");
+        Paragraph("Sixteen colours, or none when NO_COLOR is set; every mark above is a glyph or a letter as well, so nothing is lost in monochrome.");
         lines.Add("");
         lines.Add("## Saving");
-        lines.Add("  Every edit is written at once to a recovery file beside the project");
-        lines.Add("  (.NAME.recovery.yaml); the next start offers it back if the session was lost.");
-        lines.Add("  Saving replaces the project file atomically and keeps the old one as NAME.bak.");
+        Paragraph("Every edit is written at once to a recovery file beside the project (.NAME.recovery.yaml); the next start offers it back if the session was lost. Saving replaces the project file atomically and keeps the old one as NAME.bak.");
         lines.Add("");
         lines.Add("## Caution");
-        foreach (string part in Wrap(EventLayerCaution, 76)) lines.Add("  " + part);
+        Paragraph(EventLayerCaution);
         return lines;
     }
 

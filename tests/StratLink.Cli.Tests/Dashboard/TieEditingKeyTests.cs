@@ -139,5 +139,7 @@ public sealed class TieEditingKeyTests
         string text = string.Join("\n", lines);
         foreach (var e in StratLink.Cli.Dashboard.Keys.KeyTable.Entries) Assert.Contains(e.KeysText, text);
         Assert.Contains("qualified specialists", text);
+        // Every line fits the help page at 80 columns (the dialog's frame takes two).
+        Assert.All(lines, l => Assert.True(l.Length <= 78, $"{l.Length} characters: {l}"));
     }
 }
