@@ -49,8 +49,9 @@ public abstract class DashView : View
     protected void ClearViewport(Attribute attribute)
     {
         var vp = Viewport;
-        string blank = new(' ', vp.Width);
-        for (int y = 0; y < vp.Height; y++) Put(0, y, blank, attribute);
+        SetAttribute(attribute);
+        // One fill of the whole viewport: writing rows of blanks as text costs the toolkit far more per cell.
+        FillRect(new System.Drawing.Rectangle(0, 0, vp.Width, vp.Height), new Rune(' '));
     }
 
     private static string TakeRunes(string text, int count)
