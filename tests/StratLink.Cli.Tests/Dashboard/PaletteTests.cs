@@ -69,11 +69,14 @@ public sealed class PaletteTests(ITestOutputHelper output)
         Assert.Single(pairs);
         Assert.Contains(glyphs.Gap, logs);
         Assert.Contains(glyphs.Disturbed, logs);
-        Assert.Contains(glyphs.TieMark, logs);
-        Assert.Contains(glyphs.SelectedTieMark, logs);
+        Assert.Contains(glyphs.SelectedTieMark, logs); // ash-1, selected
+        Assert.Contains(glyphs.EventTieMark, logs); // tb-1, a turbidite
         Assert.Contains(glyphs.ActiveLog + "T-1", logs);
         Assert.Contains(unicode ? "▶" : ">", logs);
         Assert.True(h.Attr(3, 0)!.Value.Style.HasFlag(TextStyle.Reverse), "the active log's header is not in reverse video");
+        h.Press(Key.Esc);
+        Assert.Null(h.Window.Logs.SelectedTie);
+        Assert.Contains(glyphs.TieMark, h.ScreenText); // ash-1, a tephra, no longer selected
 
         h.Type("2");
         h.Type("]");

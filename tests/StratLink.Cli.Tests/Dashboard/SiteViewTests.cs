@@ -62,6 +62,20 @@ public sealed class SiteViewTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void A_narrower_terminal_drops_logs_from_the_right_and_keeps_the_active_one()
+    {
+        using var project = new TestProject(yaml: Site(8));
+        using var h = new DashboardHarness(project, 200, 60);
+        Assert.Contains("8 of 8 cores shown", h.Row(1));
+        for (int i = 0; i < 7; i++) h.Press(Key.CursorRight);
+        h.App.Driver!.SetScreenSize(80, 24);
+        h.App.LayoutAndDraw();
+        Assert.Equal(6, h.Window.Logs.Slots.Count);
+        Assert.Equal("T-8", h.Window.Logs.ActiveSlot!.CoreId);
+        Assert.Contains("6 of 8 cores shown", h.Row(1));
+    }
+
+    [Fact]
     public void A_tie_between_the_first_and_last_log_crosses_every_gutter_and_marks_the_logs_between()
     {
         using var project = new TestProject(yaml: Site(6));

@@ -15,6 +15,9 @@ public sealed record GlyphSet
     public required string Band { get; init; }
     public required string TieMark { get; init; }
 
+    /// <summary>A tie at an event layer (turbidite, flood bed, other event): a shape of its own, so events read without colour.</summary>
+    public required string EventTieMark { get; init; }
+
     /// <summary>The selected tie's mark: a different shape, not only a different colour.</summary>
     public required string SelectedTieMark { get; init; }
 
@@ -38,14 +41,14 @@ public sealed record GlyphSet
     public static readonly GlyphSet Utf8 = new()
     {
         Unicode = true, CurveInk = '*', Gap = "░", Disturbed = "▚", Band = "▒", TieMark = "◆",
-        SelectedTieMark = "◈", TieThrough = "┄", ActiveLog = "▸", PartnerLog = "⇔", ExcludedControlMark = "○",
+        EventTieMark = "▼", SelectedTieMark = "◈", TieThrough = "┄", ActiveLog = "▸", PartnerLog = "⇔", ExcludedControlMark = "○",
         ControlMark = "●", ErrorBar = "─", Separator = "│", BarFull = "█", BarEmpty = "░", Up = "↑", Down = "↓",
     };
 
     public static readonly GlyphSet Ascii = new()
     {
         Unicode = false, CurveInk = '*', Gap = ":", Disturbed = "~", Band = ".", TieMark = "#",
-        SelectedTieMark = "@", TieThrough = "-", ActiveLog = ">", PartnerLog = "=", ExcludedControlMark = "x",
+        EventTieMark = "v", SelectedTieMark = "@", TieThrough = "-", ActiveLog = ">", PartnerLog = "=", ExcludedControlMark = "x",
         ControlMark = "o", ErrorBar = "-", Separator = "|", BarFull = "#", BarEmpty = "-", Up = "Up", Down = "Dn",
     };
 
@@ -63,6 +66,10 @@ public sealed record GlyphSet
         }
         return Ascii;
     }
+
+    /// <summary>The mark of a tie of this kind in a log: events (turbidites, flood beds, other events) apart from the rest.</summary>
+    public string TieMarkOf(StratLink.Model.MarkerKind kind) =>
+        kind is StratLink.Model.MarkerKind.Turbidite or StratLink.Model.MarkerKind.Flood or StratLink.Model.MarkerKind.Event ? EventTieMark : TieMark;
 
     public static bool IsUtf8Locale(string locale) =>
         locale.Contains("UTF-8", StringComparison.OrdinalIgnoreCase) || locale.Contains("utf8", StringComparison.OrdinalIgnoreCase);

@@ -298,6 +298,13 @@ public sealed class CorrelationView : DashView, INavigable
             return true;
         }
         if (!EnsureFitted()) return true;
+        // After the terminal narrowed: drop logs from the right (never the active one) until the rest fit.
+        while (_slots.Count > Math.Max(MinLogs, FittingLogs))
+        {
+            int drop = Active == _slots.Count - 1 ? _slots.Count - 2 : _slots.Count - 1;
+            _slots.RemoveAt(drop);
+            if (drop < Active) Active--;
+        }
         var layout = LogLayout.For(Viewport.Width, _slots.Count);
         int rows = PlotRows;
         DrawSiteStrip(pal);
@@ -384,7 +391,7 @@ public sealed class CorrelationView : DashView, INavigable
             if (m.DepthIn(slot.CoreId) is not { } d) continue;
             int r = RowOf(slot, d.In(Project.DepthUnit));
             bool selected = m.Id == SelectedTie;
-            if (r >= 0 && r < rows) Put(left + 6, HeadRows + r, selected ? Glyphs.SelectedTieMark : Glyphs.TieMark, selected ? pal.SelectedTie : pal.Tie);
+            if (r >= 0 && r < rows) Put(left + 6, HeadRows + r, selected ? Glyphs.SelectedTieMark : Glyphs.TieMarkOf(m.Kind), selected ? pal.SelectedTie : pal.Tie);
         }
 
         int cursorRow = RowOf(slot, slot.Cursor);
