@@ -116,6 +116,21 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void The_tie_detail_line_names_the_cores_where_the_run_found_the_signals_misplace_the_tie()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        var misfit = new Finding { Severity = Severity.Warning, Code = CheckCodes.TieMisfit, Message = "misplaced", Core = "T-2", Item = "ash-1", Depth = 45 };
+        h.State.SetResults(TestResults.Full(project.Loaded) with { Checks = [misfit] });
+        h.Type("]");
+        Assert.Equal("ash-1", h.Window.Logs.SelectedTie);
+        Assert.Contains("ash-1 tephra ±0 cm: T-1 50, T-2 45", h.Row(21));
+        Assert.Contains("signals misplace it in T-2", h.Window.Logs.DetailText());
+        h.Type("]");
+        Assert.DoesNotContain("signals misplace", h.Window.Logs.DetailText());
+    }
+
+    [Fact]
     public void Enter_on_a_finding_shows_its_core_and_depth_in_the_logs()
     {
         using var project = new TestProject();

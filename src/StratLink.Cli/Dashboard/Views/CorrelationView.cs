@@ -523,7 +523,14 @@ public sealed class CorrelationView : DashView, INavigable
     public string DetailText()
     {
         if (SelectedTie is { } id && Project.FindMarker(id) is { } m)
-            return TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId);
+        {
+            // The run's check aligns without the tie and compares the signals' placing (a slower, signal-based leave-one-out).
+            var flagged = _state.ResultsState == ResultsState.Current
+                ? _state.Results?.Checks?.Where(f => f.Code == Checks.CheckCodes.TieMisfit && f.Item == m.Id && f.Core is not null).Select(f => f.Core!).ToList()
+                : null;
+            string signals = flagged is { Count: > 0 } ? $" | signals misplace it in {string.Join(", ", flagged)} (4 lists why)" : "";
+            return TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId) + signals;
+        }
         if (ActiveSlot is not { } slot || Table(slot.CoreId) is not { } table || slot.Signal is null
             || !table.Signals.TryGetValue(slot.Signal, out var values)) return "";
         var r = ValueRange(slot.CoreId, slot.Signal, values);
