@@ -82,8 +82,6 @@ public sealed class AgesView : DashView, INavigable
         return true;
     }
 
-    public int PageSize => Math.Max(1, ListArea().Height - 2);
-
     private System.Drawing.Rectangle PlotArea()
     {
         var vp = Viewport;
@@ -143,7 +141,8 @@ public sealed class AgesView : DashView, INavigable
             ageMin = Math.Min(ageMin, l);
             ageMax = Math.Max(ageMax, h);
         }
-        foreach (var c in results.Controls.Where(Drawable))
+        // Only the controls in the depth window widen the age scale, so zooming in on depth zooms the ages too.
+        foreach (var c in results.Controls.Where(c => Drawable(c) && c.CompositeDepth is double d && d >= top && d <= bottom))
         {
             ageMin = Math.Min(ageMin, c.AgeLoBP);
             ageMax = Math.Max(ageMax, c.AgeHiBP);

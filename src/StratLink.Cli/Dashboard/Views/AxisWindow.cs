@@ -73,9 +73,6 @@ public sealed class AxisWindow
     /// <summary>Row of <paramref name="value"/> (may lie outside 0..Rows-1).</summary>
     public int RowOf(double value) => (int)Math.Floor((value - Top) / PerRow);
 
-    /// <summary>Value at the middle of row <paramref name="row"/>.</summary>
-    public double ValueAt(double row) => Top + row * PerRow;
-
     private void KeepVisible()
     {
         int row = RowOf(Cursor);
