@@ -62,7 +62,7 @@ run_size() {
   wait_for "saved .*not run yet" "header without saved/not-run state"
 
   # Every core of the site is on the first screen, and the header says how many the logs show.
-  local cores; cores="$(python3 -c "import re,sys; t=open(sys.argv[1]).read(); c=t.split('\ncores:')[1].split('\nmarkers:')[0]; print(' '.join(re.findall(r'^- id: (\S+)', c, re.M)))" "$project")"
+  local cores; cores="$(python3 -c "import re,sys; t=open(sys.argv[1]).read(); c=re.split(r'^[A-Za-z_]+:', t.split('\ncores:', 1)[1], maxsplit=1, flags=re.M)[0]; m=re.findall(r'^( *)- id: (\S+)', c, re.M); print(' '.join(i for d, i in m if d == m[0][0]))" "$project")"
   local n; n="$(echo "$cores" | wc -w)"
   local first="${cores%% *}" last="${cores##* }"
   local screen; screen="$($T capture-pane -p -t dash)"
