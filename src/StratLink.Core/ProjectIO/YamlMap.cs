@@ -138,6 +138,30 @@ internal sealed partial class YamlMap
         return null;
     }
 
+    /// <summary>A mapping of free names (column names, signal names) to single values; its names are data, not keys of the format.</summary>
+    public System.Collections.Immutable.ImmutableDictionary<string, string> StringMap(string key)
+    {
+        var empty = System.Collections.Immutable.ImmutableDictionary<string, string>.Empty;
+        var n = Get(key);
+        if (n is null || n is YamlScalarNode s0 && IsNull(s0)) return empty;
+        if (n is not YamlMappingNode map)
+        {
+            Error(key, "expected a mapping of names to values");
+            return empty;
+        }
+        var b = System.Collections.Immutable.ImmutableDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
+        foreach (var (k, v) in map.Children)
+        {
+            if (k is YamlScalarNode { Value: { Length: > 0 } name } && v is YamlScalarNode { Value: { Length: > 0 } value })
+            {
+                if (!b.TryAdd(name, value))
+                    _ctx.Problems.AddError(ProjectCodes.InvalidValue, $"'{name}' is listed twice", _ctx.File, (int)k.Start.Line, Join(key));
+            }
+            else _ctx.Problems.AddError(ProjectCodes.InvalidValue, "expected name: value", _ctx.File, (int)k.Start.Line, Join(key));
+        }
+        return b.ToImmutable();
+    }
+
     /// <summary>Reports every key present but never asked for, with a near spelling when there is one.</summary>
     public void Finish()
     {
