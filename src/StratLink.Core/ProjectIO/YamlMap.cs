@@ -35,15 +35,14 @@ internal sealed partial class YamlMap
 
     public string Join(string key) => Path.Length == 0 ? key : Path + "." + key;
 
-    public bool Has(string key)
-    {
-        _known.Add(key);
-        return Get(key) is not null;
-    }
+    public bool Has(string key) => Get(key) is not null;
+
+    /// <summary>This mapping's place in the format: its path with list positions and ids written <c>[]</c>.</summary>
+    public string Section => ListIndex().Replace(Path, "[]");
 
     public YamlNode? Get(string key)
     {
-        _known.Add(key);
+        if (_known.Add(key)) _ctx.KeysAsked.Add((Section, key));
         return _node.Children.TryGetValue(new YamlScalarNode(key), out var n) ? n : null;
     }
 
@@ -220,4 +219,7 @@ internal sealed partial class YamlMap
 
     [GeneratedRegex(@"^[+-]?\d+,\d+$")]
     private static partial Regex DecimalComma();
+
+    [GeneratedRegex(@"\[[^\]]*\]")]
+    private static partial Regex ListIndex();
 }
