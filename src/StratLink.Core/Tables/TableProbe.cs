@@ -39,6 +39,8 @@ public static partial class TableProbe
             foreach (var d in Delimiters.DetectionOrder)
             {
                 var names = Split(lines[i], d);
+                // One field is no core table (a depth and at least one signal), and it would take "depth,ms" for a name.
+                if (names.Length < 2) continue;
                 int k = BestDepthColumn(names);
                 if (k < 0) continue;
                 string? next = lines.Skip(i + 1).FirstOrDefault(l => l.Trim().Length > 0 && !l.TrimStart().StartsWith('#'));
