@@ -57,6 +57,16 @@ public sealed class NewCommandTests : IDisposable
         Assert.Contains("agemodel", output);
 
         AssertChecksAndBuilds(project, "d18O_mean", "d13C_mean");
+
+        // Without age controls the LiPD export holds the composite alone, depths in the project's unit.
+        string lpd = Path.Combine(_dir, "ceara.lpd");
+        var export = CliRunner.Run("export", project, "--what", "lipd", "--out", lpd);
+        Assert.True(export.Code == 0, export.Out + export.Err);
+        using var zip = System.IO.Compression.ZipFile.OpenRead(lpd);
+        using var meta = System.Text.Json.JsonDocument.Parse(zip.GetEntry("bag/data/metadata.jsonld")!.Open());
+        Assert.False(meta.RootElement.TryGetProperty("chronData", out _));
+        var columns = meta.RootElement.GetProperty("paleoData")[0].GetProperty("measurementTable")[0].GetProperty("columns");
+        Assert.Equal("m", columns[0].GetProperty("units").GetString());
     }
 
     [Fact]
