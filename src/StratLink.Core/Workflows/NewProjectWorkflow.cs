@@ -214,7 +214,7 @@ public static partial class NewProjectWorkflow
 
     private static string SignalKey(string column)
     {
-        string k = NonAlnum().Replace(TableProbe.Bare(column), "");
+        string k = NonAlnum().Replace(TableProbe.Bare(column).Replace('δ', 'd'), "");
         if (k.StartsWith("d18o", StringComparison.Ordinal) || k.StartsWith("delta18o", StringComparison.Ordinal) || k == "o18" || k.StartsWith("o18", StringComparison.Ordinal)) return "d18o";
         if (k.StartsWith("d13c", StringComparison.Ordinal) || k.StartsWith("delta13c", StringComparison.Ordinal) || k == "c13" || k.StartsWith("c13", StringComparison.Ordinal)) return "d13c";
         return k;
