@@ -99,7 +99,7 @@ public static partial class ArchiveMetadataReader
             var parts = l[2..].Trim().Split('\t', 2);
             if (parts.Length == 2 && parts[1].Split(',') is { Length: >= 4 } f && f[3].Trim() is { Length: > 0 } unit) units.TryAdd(parts[0].Trim(), unit);
         }
-        return new ArchiveMetadata
+        var meta = new ArchiveMetadata
         {
             Layout = ArchiveMetadata.NoaaText,
             Site = Value("Site_Name", "Core/Site", "Site", "Core"),
@@ -108,6 +108,9 @@ public static partial class ArchiveMetadataReader
             Citation = Value("Full_Citation", "Citation") ?? FirstPublication(text),
             MissingValue = missing?.Trim('\'', '"'),
         };
+        // Comment lines that say none of this are just comments, not the archive's layout.
+        bool said = meta.Site is not null || meta.Latitude is not null || meta.Longitude is not null || meta.Citation is not null || meta.MissingValue is not null;
+        return said ? meta : new ArchiveMetadata();
     }
 
     /// <summary>The first entry of an old-style "Publications:" list: its first line and the more indented lines after it.</summary>

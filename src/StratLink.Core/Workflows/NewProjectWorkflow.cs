@@ -81,7 +81,7 @@ public static partial class NewProjectWorkflow
         var drafts = new List<CoreDraft>();
         DepthUnit unit = units.FirstOrDefault() ?? DepthUnit.Centimetre;
         foreach (var (file, probe) in probed)
-            if (Draft(file, "draft", probe, unit, projectDir, problems, skipped, ct) is { } d) drafts.Add(d);
+            if (Draft(file, Path.GetFileNameWithoutExtension(file), probe, unit, projectDir, problems, skipped, ct) is { } d) drafts.Add(d);
         var ids = CoreIds(drafts.Select(d => d.File).ToList());
         drafts = drafts.Select((d, i) => d with { Spec = d.Spec with { Id = ids[i] } }).ToList();
         if (problems.HasErrors) return Fail();
