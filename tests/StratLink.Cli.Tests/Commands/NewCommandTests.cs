@@ -118,6 +118,20 @@ public sealed class NewCommandTests : IDisposable
     }
 
     [Fact]
+    public void A_list_of_table_files_becomes_a_project_wherever_it_is_written()
+    {
+        string cores = Path.Combine(_dir, "lab", "cores");
+        foreach (string id in new[] { "MW19-P1", "MW19-G3" }) Copy(Path.Combine(RepoPaths.DemoDirectory, "cores", id + ".csv"), cores);
+        string project = Path.Combine(_dir, "lab", "site.stratlink.yaml");
+        var (code, output, err) = CliRunner.Run("new", Path.Combine(cores, "MW19-P1.csv"), Path.Combine(cores, "MW19-G3.csv"), "--out", project, "--yes");
+        Assert.True(code == 0, output + err);
+        string text = File.ReadAllText(project);
+        Assert.Contains("table: cores/MW19-P1.csv", text);
+        Assert.Contains("table: cores/MW19-G3.csv", text);
+        AssertChecksAndBuilds(project, "ms_mean");
+    }
+
+    [Fact]
     public void A_folder_without_tables_is_refused_naming_it_and_nothing_is_written()
     {
         string empty = Path.Combine(_dir, "empty");
