@@ -55,5 +55,6 @@ public static class CliApp
         CalibrateCommand.Create(ctx),
         PairCommand.Create(ctx),
         DemoCommand.Create(ctx),
+        NewCommand.Create(ctx),
     ];
 }

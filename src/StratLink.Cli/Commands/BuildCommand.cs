@@ -33,6 +33,7 @@ internal static class BuildCommand
             int errors = result.Findings.Count(f => f.Severity == Severity.Error);
             int warnings = result.Findings.Count(f => f.Severity == Severity.Warning);
             ctx.Out.WriteLine($"{errors} error(s), {warnings} warning(s) in checks.csv.");
+            if (result.Findings.FirstOrDefault(f => f.Code == AgeModelling.AgeModelCodes.NoControls) is { } noAges) ctx.Out.WriteLine("Note: " + noAges.Message);
             if (loaded.Project.Markers.Any(m => m.Kind is MarkerKind.Turbidite or MarkerKind.Flood or MarkerKind.Event))
                 ctx.Out.WriteLine("Caution: " + Dashboard.HelpText.EventLayerCaution);
             return errors > 0 ? ExitCodes.Findings : ExitCodes.Success;

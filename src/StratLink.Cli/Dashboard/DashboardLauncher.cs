@@ -11,7 +11,7 @@ namespace StratLink.Cli.Dashboard;
 
 /// <summary>
 /// Starts the dashboard: refuses without a terminal, opens the given project or offers the recent
-/// ones and the demo, offers unsaved edits from a lost session back, then runs the window.
+/// ones, the demo and a new project drafted from tables, offers unsaved edits from a lost session back, then runs the window.
 /// </summary>
 public static class DashboardLauncher
 {
@@ -71,7 +71,7 @@ public static class DashboardLauncher
         return true;
     }
 
-    /// <summary>The start screen when no project is named: recent projects, the demo, or a path typed in.</summary>
+    /// <summary>The start screen when no project is named: recent projects, the demo, a path typed in, or a new project from tables.</summary>
     internal static string? PickProject(IPrompts prompts, RecentProjects recent, Func<string, string?> env)
     {
         var recentPaths = recent.Read();
@@ -80,6 +80,7 @@ public static class DashboardLauncher
         var options = recentPaths.Select(p => "Recent: " + p).ToList();
         if (shipped is not null) options.Add($"The demo site (a working copy in {working})");
         options.Add("Open a project file by its path...");
+        options.Add("New project from tables...");
         options.Add("Quit");
         string message = recentPaths.Count == 0 && shipped is null
             ? "No recent projects. Type a project file's path, or start with: stratlink PROJECT.yaml"
@@ -102,11 +103,49 @@ public static class DashboardLauncher
                 }
                 continue;
             }
+            if (pick == options.Count - 2)
+            {
+                if (NewFromTables(prompts, out string problem) is { } created) return created;
+                if (problem.Length > 0) message = problem;
+                continue;
+            }
             string? typed = prompts.AskText("Open", "Project file:", Directory.GetCurrentDirectory() + Path.DirectorySeparatorChar);
             if (typed is null) continue;
             typed = typed.Trim();
             if (File.Exists(typed)) return Path.GetFullPath(typed);
             message = $"There is no file {typed}.";
+        }
+    }
+
+    /// <summary>The start screen's "new project from tables": the same draft as <c>stratlink new</c>, confirmed before it is written.</summary>
+    private static string? NewFromTables(IPrompts prompts, out string problem)
+    {
+        problem = "";
+        string? folder = prompts.AskText("New project from tables", "Folder of core tables:", Directory.GetCurrentDirectory() + Path.DirectorySeparatorChar);
+        if (string.IsNullOrWhiteSpace(folder)) return null;
+        var plan = NewProjectWorkflow.Draft([folder.Trim()], null);
+        if (!plan.CanWrite)
+        {
+            problem = "No project: " + plan.Problems.First(p => p.Severity == Severity.Error);
+            return null;
+        }
+        if (File.Exists(plan.ProjectPath))
+        {
+            problem = $"{plan.ProjectPath} exists already; open it instead.";
+            return null;
+        }
+        string summary = $"{plan.Cores.Count} core(s): {string.Join(", ", plan.Cores.Select(c => c.Spec.Id))}\n" +
+                         $"reference {plan.Reference}, signals {string.Join(", ", plan.Signals)}\nwrite {plan.ProjectPath}?";
+        if (prompts.Choose("New project from tables", summary, ["Write it and open it", "Cancel"], 0) != 0) return null;
+        try
+        {
+            NewProjectWorkflow.Write(plan);
+            return plan.ProjectPath;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            problem = $"Could not write {plan.ProjectPath}: {e.Message}";
+            return null;
         }
     }
 

@@ -4,6 +4,7 @@ namespace StratLink.AgeModelling;
 public static class AgeModelCodes
 {
     public const string TooFewControls = "age-model.too-few-controls";
+    public const string NoControls = "age-model.no-controls";
     public const string UnknownMarker = "age-model.unknown-marker";
     public const string NoMapping = "age-model.no-mapping";
     public const string Calibration = "age-model.calibration";

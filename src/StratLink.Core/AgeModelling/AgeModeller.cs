@@ -84,8 +84,11 @@ public static class AgeModeller
         int distinctPoints = active.SelectMany(c => prepared[c]!.PointCores.Zip(prepared[c]!.PointDepths)).Distinct().Count();
         if (distinctPoints < 2)
         {
-            findings.Add(Finding.Error(AgeModelCodes.TooFewControls,
-                $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
+            // A project without any age control asks for alignment and composite only: nothing failed.
+            findings.Add(specs.Count == 0
+                ? Finding.Note(AgeModelCodes.NoControls, "the project has no age controls: the alignment and the composite are built on depth alone, without ages.")
+                : Finding.Error(AgeModelCodes.TooFewControls,
+                    $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
             var empty = Summaries(specs, prepared, problemOf, [], [], iterations, null);
             return new AgeModelResult(seed, interpolation, unit, [], empty, new Dictionary<string, AgeSeries>(), null, 0, findings);
         }

@@ -25,7 +25,8 @@ public static class DemoSiteWriter
             Save(Path.Combine(dir, "truth", $"{id}-truth.csv"), TruthCsv(truth, unit));
         Save(Path.Combine(dir, "truth", "README.md"), TruthReadme(site));
         string projectPath = Path.Combine(dir, site.ProjectFileName);
-        Save(projectPath, ProjectWriter.ToYaml(site.Project));
+        Save(projectPath, ProjectSchema.ModelineComment + "\n" + ProjectWriter.ToYaml(site.Project));
+        Save(Path.Combine(dir, ProjectSchema.FileName), ProjectSchema.Text);
         return projectPath;
     }
 

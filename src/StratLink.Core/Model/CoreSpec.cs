@@ -37,6 +37,31 @@ public sealed record CoreSpec
     /// <summary>Free text: piston, gravity, freeze, ... (optional).</summary>
     public string? Type { get; init; }
 
+    /// <summary>What to do with rows that repeat a depth (replicates): refuse them, or combine them into one sample.</summary>
+    public RepeatedDepths RepeatedDepths { get; init; } = RepeatedDepths.Error;
+
+    /// <summary>Table column name to the project's signal name, for tables that name a signal differently.</summary>
+    public ImmutableDictionary<string, string> Columns { get; init; } = ImmutableDictionary<string, string>.Empty;
+
+    /// <summary>Where the data were published (from an archive file's metadata, or written by the user).</summary>
+    public string? Citation { get; init; }
+
+    /// <summary>Coring position, decimal degrees (north and east positive).</summary>
+    public double? Latitude { get; init; }
+
+    public double? Longitude { get; init; }
+
+    /// <summary>Signal name to its unit as free text (e.g. <c>d18O: permil VPDB</c>), for outputs that carry units.</summary>
+    public ImmutableDictionary<string, string> Units { get; init; } = ImmutableDictionary<string, string>.Empty;
+
+    /// <summary>The table column that holds <paramref name="signal"/> (the signal name itself unless <see cref="Columns"/> renames one).</summary>
+    public string ColumnOf(string signal)
+    {
+        foreach (var (column, name) in Columns)
+            if (name == signal) return column;
+        return signal;
+    }
+
     /// <summary>True when <paramref name="depthInProjectUnit"/> lies in a gap or a disturbed interval.</summary>
     public bool IsUnusable(double depthInProjectUnit) =>
         Gaps.Any(g => g.ContainsValue(depthInProjectUnit)) || Disturbed.Any(d => d.ContainsValue(depthInProjectUnit));

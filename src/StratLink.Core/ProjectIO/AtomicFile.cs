@@ -15,7 +15,15 @@ public static class AtomicFile
         Write(path, w => w.Write(text), keepBackup);
 
     /// <summary>Streams the content through <paramref name="write"/> (large tables are never held as one string).</summary>
-    public static void Write(string path, Action<TextWriter> write, bool keepBackup = true)
+    public static void Write(string path, Action<TextWriter> write, bool keepBackup = true) =>
+        WriteBytes(path, stream =>
+        {
+            using var w = new StreamWriter(stream, Utf8NoBom, 64 * 1024, leaveOpen: true) { NewLine = "\n" };
+            write(w);
+        }, keepBackup);
+
+    /// <summary>The same for binary content (a zip archive).</summary>
+    public static void WriteBytes(string path, Action<Stream> write, bool keepBackup = true)
     {
         string full = Path.GetFullPath(path);
         string dir = Path.GetDirectoryName(full) ?? ".";
@@ -26,8 +34,7 @@ public static class AtomicFile
         {
             using (var fs = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 64 * 1024))
             {
-                using (var w = new StreamWriter(fs, Utf8NoBom, 64 * 1024, leaveOpen: true) { NewLine = "\n" })
-                    write(w);
+                write(fs);
                 fs.Flush(flushToDisk: true);
             }
             // Copy (not move) the old file to the backup, so the target is never absent; the copy goes

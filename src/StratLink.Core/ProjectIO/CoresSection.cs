@@ -51,10 +51,29 @@ internal static class CoresSection
             HeaderLine = m.Int("header_line"),
             Sort = m.Bool("sort") ?? false,
             Type = m.String("type"),
+            RepeatedDepths = ReadRepeatedDepths(m),
+            Columns = m.StringMap("columns"),
+            Citation = m.String("citation"),
+            Latitude = m.Double("latitude"),
+            Longitude = m.Double("longitude"),
+            Units = m.StringMap("units"),
         };
         if (core.HeaderLine is < 1) m.Error("header_line", "header_line counts lines from 1");
+        if (core.Latitude is < -90 or > 90) m.Error("latitude", $"latitude {core.Latitude} is outside -90..90");
+        if (core.Longitude is < -180 or > 360) m.Error("longitude", $"longitude {core.Longitude} is outside -180..360");
+        foreach (var g in core.Columns.GroupBy(c => c.Value, StringComparer.Ordinal).Where(g => g.Count() > 1))
+            m.Error("columns", $"columns {string.Join(" and ", g.Select(c => $"'{c.Key}'").Order(StringComparer.Ordinal))} are both mapped onto signal '{g.Key}'");
         m.Finish();
         return core;
+    }
+
+    private static RepeatedDepths ReadRepeatedDepths(YamlMap m)
+    {
+        string? text = m.String("repeated_depths");
+        if (text is null) return RepeatedDepths.Error;
+        if (Enum.TryParse<RepeatedDepths>(text.Trim(), ignoreCase: true, out var v) && Enum.IsDefined(v) && !char.IsDigit(text.Trim()[0])) return v;
+        m.Error("repeated_depths", $"repeated_depths is '{text}'; write error, mean, median or first");
+        return RepeatedDepths.Error;
     }
 
     private static ImmutableList<DepthInterval> ReadIntervals(YamlMap m, string key, DepthUnit unit)
@@ -120,7 +139,13 @@ internal static class CoresSection
             if (c.HeaderLine is int h) n.Add("header_line", YamlOut.Num(h));
             if (c.MissingValues.Count > 0) n.Add("missing_values", YamlOut.FlowStrs(c.MissingValues));
             if (c.Sort) n.Add("sort", YamlOut.Bool(true));
+            if (c.RepeatedDepths != RepeatedDepths.Error) n.Add("repeated_depths", YamlOut.Str(c.RepeatedDepths.ToString().ToLowerInvariant()));
+            if (c.Columns.Count > 0) n.Add("columns", YamlOut.FlowMap(c.Columns));
             if (c.Signals.Count > 0) n.Add("signals", YamlOut.FlowStrs(c.Signals));
+            if (c.Units.Count > 0) n.Add("units", YamlOut.FlowMap(c.Units));
+            if (c.Citation is not null) n.Add("citation", YamlOut.Str(c.Citation));
+            if (c.Latitude is double lat) n.Add("latitude", YamlOut.Num(lat));
+            if (c.Longitude is double lon) n.Add("longitude", YamlOut.Num(lon));
             if (c.Gaps.Count > 0) n.Add("gaps", Intervals(c.Gaps, unit));
             if (c.Disturbed.Count > 0) n.Add("disturbed", Intervals(c.Disturbed, unit));
             if (c.Sections.Count > 0)

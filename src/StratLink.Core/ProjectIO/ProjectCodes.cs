@@ -34,4 +34,5 @@ public static class ProjectCodes
     public const string TableMixedDecimalMarks = "table.mixed-decimal-marks";
     public const string TableSectionsIgnored = "table.sections-ignored";
     public const string TableEmpty = "table.empty";
+    public const string TableRepeatsCombined = "table.repeats-combined";
 }

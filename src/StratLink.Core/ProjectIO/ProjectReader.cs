@@ -46,6 +46,14 @@ public static class ProjectReader
     /// <summary>Parses project text; <paramref name="path"/> names it in messages and resolves relative paths.</summary>
     public static ProjectDocument Parse(string text, string path) => Parse(text, path, new ReadContext(path));
 
+    /// <summary>The (section, key) pairs the reader asked for while reading <paramref name="text"/>: what it accepts there.</summary>
+    internal static IReadOnlySet<(string Section, string Key)> KeysAccepted(string text)
+    {
+        var ctx = new ReadContext("keys.stratlink.yaml");
+        Parse(text, ctx.File, ctx);
+        return ctx.KeysAsked;
+    }
+
     private static ProjectDocument Parse(string text, string path, ReadContext ctx)
     {
         var root = ParseYaml(text, ctx);

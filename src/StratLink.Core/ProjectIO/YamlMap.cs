@@ -35,15 +35,14 @@ internal sealed partial class YamlMap
 
     public string Join(string key) => Path.Length == 0 ? key : Path + "." + key;
 
-    public bool Has(string key)
-    {
-        _known.Add(key);
-        return Get(key) is not null;
-    }
+    public bool Has(string key) => Get(key) is not null;
+
+    /// <summary>This mapping's place in the format: its path with list positions and ids written <c>[]</c>.</summary>
+    public string Section => ListIndex().Replace(Path, "[]");
 
     public YamlNode? Get(string key)
     {
-        _known.Add(key);
+        if (_known.Add(key)) _ctx.KeysAsked.Add((Section, key));
         return _node.Children.TryGetValue(new YamlScalarNode(key), out var n) ? n : null;
     }
 
@@ -138,6 +137,30 @@ internal sealed partial class YamlMap
         return null;
     }
 
+    /// <summary>A mapping of free names (column names, signal names) to single values; its names are data, not keys of the format.</summary>
+    public System.Collections.Immutable.ImmutableDictionary<string, string> StringMap(string key)
+    {
+        var empty = System.Collections.Immutable.ImmutableDictionary<string, string>.Empty;
+        var n = Get(key);
+        if (n is null || n is YamlScalarNode s0 && IsNull(s0)) return empty;
+        if (n is not YamlMappingNode map)
+        {
+            Error(key, "expected a mapping of names to values");
+            return empty;
+        }
+        var b = System.Collections.Immutable.ImmutableDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
+        foreach (var (k, v) in map.Children)
+        {
+            if (k is YamlScalarNode { Value: { Length: > 0 } name } && v is YamlScalarNode { Value: { Length: > 0 } value })
+            {
+                if (!b.TryAdd(name, value))
+                    _ctx.Problems.AddError(ProjectCodes.InvalidValue, $"'{name}' is listed twice", _ctx.File, (int)k.Start.Line, Join(key));
+            }
+            else _ctx.Problems.AddError(ProjectCodes.InvalidValue, "expected name: value", _ctx.File, (int)k.Start.Line, Join(key));
+        }
+        return b.ToImmutable();
+    }
+
     /// <summary>Reports every key present but never asked for, with a near spelling when there is one.</summary>
     public void Finish()
     {
@@ -196,4 +219,7 @@ internal sealed partial class YamlMap
 
     [GeneratedRegex(@"^[+-]?\d+,\d+$")]
     private static partial Regex DecimalComma();
+
+    [GeneratedRegex(@"\[[^\]]*\]")]
+    private static partial Regex ListIndex();
 }

@@ -29,4 +29,11 @@ internal static class YamlOut
 
     public static YamlSequenceNode FlowStrs(IEnumerable<string> values) =>
         new(values.Select(v => (YamlNode)Str(v))) { Style = SequenceStyle.Flow };
+
+    public static YamlMappingNode FlowMap(IEnumerable<KeyValuePair<string, string>> pairs)
+    {
+        var n = new YamlMappingNode { Style = MappingStyle.Flow };
+        foreach (var (k, v) in pairs.OrderBy(p => p.Key, StringComparer.Ordinal)) n.Add(Str(k), Str(v));
+        return n;
+    }
 }

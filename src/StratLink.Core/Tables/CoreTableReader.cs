@@ -65,21 +65,22 @@ public static class CoreTableReader
             depths = [.. order.Select(i => depths[i])];
             lines = [.. order.Select(i => lines[i])];
         }
-        CheckIncreasing(depths, lines, spec, report);
 
         var signals = new Dictionary<string, double[]>(StringComparer.Ordinal);
-        foreach (string name in SignalNames(table, spec, header, report))
+        foreach (var (column, name) in SignalColumns(table, spec, header, report))
         {
-            var column = table.Numeric[name];
-            if (allKept && order is null)
+            var values = table.Numeric[column];
+            if (!allKept || order is not null)
             {
-                signals[name] = column;
-                continue;
+                var picked = new double[keep.Count];
+                for (int k = 0; k < picked.Length; k++) picked[k] = values[keep[order?[k] ?? k]];
+                values = picked;
             }
-            var values = new double[keep.Count];
-            for (int k = 0; k < values.Length; k++) values[k] = column[keep[order?[k] ?? k]];
             signals[name] = values;
         }
+        if (spec.RepeatedDepths != RepeatedDepths.Error)
+            (depths, lines, signals) = ReplicateCombiner.Combine(depths, lines, signals, spec, report);
+        CheckIncreasing(depths, lines, spec, report);
         report.Flush();
         return report.HasErrors ? null : new CoreTable(spec.Id, unit, depths, signals, path, lines);
     }
@@ -138,25 +139,40 @@ public static class CoreTableReader
             if (depths[i] > depths[i - 1]) continue;
             string d = Format(depths[i]), prev = Format(depths[i - 1]);
             string message = depths[i] == depths[i - 1]
-                ? $"depth {d} at line {lines[i]} repeats the depth at line {lines[i - 1]}; each depth holds one sample (average or drop the repeat)"
+                ? $"depth {d} at line {lines[i]} repeats the depth at line {lines[i - 1]}; each depth holds one sample (or set repeated_depths: mean, median or first for core '{spec.Id}')"
                 : $"depth {d} at line {lines[i]} lies above the depth {prev} at line {lines[i - 1]}; depths must increase down the table (or set sort: true for core '{spec.Id}')";
             report.Error(ProjectCodes.TableDepthOrder, message, lines[i], spec.DepthColumn);
         }
     }
 
-    private static IEnumerable<string> SignalNames(DelimitedTable table, CoreSpec spec, int header, TableProblems report)
+    /// <summary>The signals as (table column, signal name) pairs, the core's <c>columns</c> renaming applied.</summary>
+    private static List<(string Column, string Name)> SignalColumns(DelimitedTable table, CoreSpec spec, int header, TableProblems report)
     {
+        foreach (string column in spec.Columns.Keys.Where(c => !table.Columns.Contains(c, StringComparer.Ordinal)).Order(StringComparer.Ordinal))
+            report.Error(ProjectCodes.TableMissingColumn,
+                $"core '{spec.Id}' renames column '{column}' but the header has no such column; it has: {string.Join(", ", table.Columns)}", header, column);
+        string NameOf(string column) => spec.Columns.TryGetValue(column, out var n) ? n : column;
+        var pairs = new List<(string, string)>();
         if (spec.Signals.Count == 0)
-            return table.Numeric.Keys.Where(k => k != spec.DepthColumn && k != SectionColumn).ToList();
-        var names = new List<string>();
-        foreach (string s in spec.Signals.Distinct(StringComparer.Ordinal))
         {
-            if (s == spec.DepthColumn) continue;
-            if (table.Numeric.ContainsKey(s)) names.Add(s);
-            else if (table.TextOnlyColumns.Contains(s, StringComparer.Ordinal))
-                report.Error(ProjectCodes.TableNotNumeric, $"signal column '{s}' holds no numbers", header, s);
+            foreach (string column in table.Numeric.Keys.Where(k => k != spec.DepthColumn && k != SectionColumn))
+                pairs.Add((column, NameOf(column)));
         }
-        return names;
+        else
+        {
+            foreach (string s in spec.Signals.Distinct(StringComparer.Ordinal))
+            {
+                string column = spec.ColumnOf(s);
+                if (column == spec.DepthColumn) continue;
+                if (table.Numeric.ContainsKey(column)) pairs.Add((column, s));
+                else if (table.TextOnlyColumns.Contains(column, StringComparer.Ordinal))
+                    report.Error(ProjectCodes.TableNotNumeric, $"signal column '{column}' holds no numbers", header, column);
+            }
+        }
+        foreach (var g in pairs.GroupBy(p => p.Item2, StringComparer.Ordinal).Where(g => g.Count() > 1))
+            report.Error(ProjectCodes.TableDuplicateColumn,
+                $"columns {string.Join(" and ", g.Select(p => $"'{p.Item1}'"))} would both be signal '{g.Key}' of core '{spec.Id}'; rename one under columns", header, g.Key);
+        return pairs.GroupBy(p => p.Item2, StringComparer.Ordinal).Select(g => g.First()).ToList();
     }
 
     private static string Format(double v) => v.ToString("R", CultureInfo.InvariantCulture);

@@ -33,6 +33,9 @@ internal sealed class TableProblems(FindingList target, string file)
     public void Warning(string code, string message, int? line = null, string? field = null) =>
         target.AddWarning(code, message, file, line, field);
 
+    public void Note(string code, string message, int? line = null, string? field = null) =>
+        target.AddNote(code, message, file, line, field);
+
     /// <summary>Adds one summary per kind that had more problems than were listed.</summary>
     public void Flush()
     {

@@ -6,7 +6,8 @@ namespace StratLink.Tables;
 
 /// <summary>
 /// Finds a table's layout from its first lines: the encoding (UTF-8, else Latin-1), the header line
-/// (given, or the first non-comment line holding the key column, so free-text preambles are skipped)
+/// (given, or the first non-comment line holding the key column, so free-text preambles, <c>#</c> lines
+/// and a <c>/* ... */</c> data description are skipped)
 /// and the delimiter (the first of tab, semicolon, comma and blank runs that splits the key column out
 /// of the header line).
 /// </summary>
@@ -39,6 +40,7 @@ internal static class TableSniffer
         var parser = new CellParser(decimalCommaAllowed: true, []);
         string? caseHint = null;
         TableLayout? candidate = null, firstRejected = null;
+        bool inMetadataBlock = false;
         int limit = options.HeaderLine ?? options.MaxHeaderSearchLines;
         while (lines.LineNumber < limit && lines.TryReadLine())
         {
@@ -47,6 +49,11 @@ internal static class TableSniffer
             {
                 if (lines.LineNumber < wanted) continue;
                 return ExplicitHeader(line, wanted, encoding, options, fields, path, problems);
+            }
+            if (inMetadataBlock || StartsMetadataBlock(line))
+            {
+                inMetadataBlock = line.IndexOf("*/"u8) < 0;
+                continue;
             }
             if (IsBlankOrComment(line)) continue;
             // A preamble sentence can hold the key word too ("depth in cm"): a header must be followed by a
@@ -89,6 +96,9 @@ internal static class TableSniffer
 
     public static FileStream OpenRead(string path) =>
         new(path, FileMode.Open, FileAccess.Read, FileShare.Read, 64 * 1024, FileOptions.SequentialScan);
+
+    /// <summary>A <c>/* ... */</c> block before the header holds an archive's data description, not rows.</summary>
+    public static bool StartsMetadataBlock(ReadOnlySpan<byte> line) => CellParser.Trim(line).StartsWith("/*"u8);
 
     public static bool IsBlankOrComment(ReadOnlySpan<byte> line)
     {

@@ -295,6 +295,15 @@ public class AgeModellerTests
     }
 
     [Fact]
+    public void NoControlsAtAllIsANoteNotAnError()
+    {
+        var result = Run(Project([], new Dictionary<string, double[]> { ["R"] = [0, 10] }, iterations: 10), Aligned(Affine("R", 1, 0)));
+        Assert.False(result.IsBuilt);
+        Assert.False(result.Findings.HasErrors);
+        Assert.Equal(StratLink.Checks.Severity.Note, Assert.Single(result.Findings, f => f.Code == AgeModelCodes.NoControls).Severity);
+    }
+
+    [Fact]
     public void AgesCsvHasUnitsInvariantNumbersAndAscendingDepths()
     {
         var project = Project([Calendar("a", "R", 0, -60, 0), Calendar("b", "R", 100, 940, 0)], new Dictionary<string, double[]> { ["R"] = [0.5, 10.25, 99.5] }, iterations: 5, rateVariability: 0);

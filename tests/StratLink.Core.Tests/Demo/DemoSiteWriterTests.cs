@@ -22,7 +22,7 @@ public sealed class DemoSiteWriterTests : IDisposable
         string[] expected =
         [
             "cores/MW19-F4-varves.csv", "cores/MW19-F4.csv", "cores/MW19-G3.csv", "cores/MW19-P1-varves.csv", "cores/MW19-P1.csv", "cores/MW19-P2.csv",
-            "mirrowick-fjord.stratlink.yaml",
+            "mirrowick-fjord.stratlink.yaml", "stratlink-project.schema.json",
             "truth/MW19-F4-truth.csv", "truth/MW19-G3-truth.csv", "truth/MW19-P1-truth.csv", "truth/MW19-P2-truth.csv", "truth/README.md",
         ];
         Assert.Equal(expected, Files(_dir));
