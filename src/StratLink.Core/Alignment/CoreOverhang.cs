@@ -8,9 +8,12 @@ namespace StratLink.Alignment;
 /// reference where the records stop matching instead of squeezing the surplus onto its end; missing
 /// cells cost the neutral level, so the padding neither attracts nor repels the path.
 /// </summary>
-internal readonly record struct CoreOverhang(int Top, int Bottom)
+internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRatio = 1)
 {
     public bool Any => Top > 0 || Bottom > 0;
+
+    /// <summary>Mean rate ratio of the straight-line-ties mapping over the core (1 with a single tie).</summary>
+    public double MeanTieRatio => TieRatio;
 
     /// <summary>
     /// Cells by which the straight-line-ties mapping places the core's ends outside the reference,
@@ -27,7 +30,8 @@ internal readonly record struct CoreOverhang(int Top, int Bottom)
         // Less than a band half-width (the ties' own error at the ends, a porous top the mean tie rate
         // underrates) is left to the band, as between cores that end together.
         int w = Math.Max(1, (int)Math.Ceiling(window * Math.Max(n, m)));
-        return new CoreOverhang(above > w ? (int)Math.Ceiling(above) + w : 0, below > w ? (int)Math.Ceiling(below) + w : 0);
+        double ratio = (line.ToCompositeValue(core.DepthAt(n - 1)) - line.ToCompositeValue(core.DepthAt(0))) / Math.Max(1e-12, core.DepthAt(n - 1) - core.DepthAt(0));
+        return new CoreOverhang(above > w ? (int)Math.Ceiling(above) + w : 0, below > w ? (int)Math.Ceiling(below) + w : 0, ratio > 0 ? ratio : 1);
     }
 
     /// <summary>The reference with <see cref="Top"/> missing rows above and <see cref="Bottom"/> below.</summary>

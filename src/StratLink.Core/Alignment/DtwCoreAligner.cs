@@ -79,7 +79,9 @@ public static class DtwCoreAligner
             double weight = 0;
             for (int s = 0; s < segments.Count; s++)
                 weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
-            completion = Math.Min(completion, optimal.Sum(p => p.Distance) / weight);
+            // Where the path runs through padding beyond the reference, those cells cost the neutral
+            // level and would raise the path's mean: take the mean over the cells it compares.
+            completion = Math.Min(completion, overhang.Any ? ComparedMean(cost, optimal, segments) : optimal.Sum(p => p.Distance) / weight);
             SolveSegments(completion);
         }
 
@@ -313,6 +315,22 @@ public static class DtwCoreAligner
             for (int k = start; k < pi.Length; k++) { ri.Add(pi[k]); rj.Add(pj[k]); }
         }
         return ([.. ri], [.. rj]);
+    }
+
+    /// <summary>Mean local cost over the cells of the segment paths where both sides have data.</summary>
+    private static double ComparedMean(SignalCost cost, DtwPath[] paths, List<Segment> segs)
+    {
+        double sum = 0;
+        int count = 0;
+        for (int s = 0; s < paths.Length; s++)
+            for (int k = 0; k < paths[s].Length; k++)
+            {
+                int i = paths[s].I[k] + segs[s].R0, j = paths[s].J[k] + segs[s].C0;
+                if (cost.IsMissing(i, j)) continue;
+                sum += cost.Cost(i, j);
+                count++;
+            }
+        return count > 0 ? sum / count : cost.Neutral;
     }
 
     /// <summary>Integrated autocorrelation time of the local costs along a path (cells where both sides have data).</summary>

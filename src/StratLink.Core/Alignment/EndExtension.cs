@@ -6,7 +6,7 @@ namespace StratLink.Alignment;
 /// Continues a mapping over the part of a core that runs past the reference, where nothing is
 /// compared: at the rate ratio of the aligned part next to it (fitted over twice the extrapolated
 /// distance where the aligned part is that long, at least 10 grid steps: rate ratios wiggle, and a
-/// longer stretch averages them). In ensemble members the log rate ratio departs from the
+/// longer stretch averages them; held within a factor 2 of the ties' mean ratio). In ensemble members the log rate ratio departs from the
 /// fitted one as a stationary first-order autoregressive (Ornstein-Uhlenbeck) process plus the
 /// fitted mean's own error, so the band widens with distance from the last matched sample but the
 /// ratio stays within what the aligned part shows: its spread s and correlation length (one window)
@@ -22,12 +22,12 @@ internal sealed class EndExtension
     /// <summary>Largest spread of log rate ratio used (a factor of about 1.65 at 1 sigma): a path's own jitter must not pass for rate changes.</summary>
     private const double MaxSpread = 0.5;
 
-    private readonly double _top, _bottom, _gridStep, _spread, _window;
+    private readonly double _top, _bottom, _gridStep, _spread, _window, _tieRatio;
     private readonly bool _extendTop, _extendBottom;
 
-    private EndExtension(double top, double bottom, double gridStep, double spread, double window, bool extendTop, bool extendBottom)
+    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double tieRatio, bool extendTop, bool extendBottom)
     {
-        (_top, _bottom, _gridStep, _spread, _window, _extendTop, _extendBottom) = (top, bottom, gridStep, spread, window, extendTop, extendBottom);
+        (_top, _bottom, _gridStep, _spread, _window, _tieRatio, _extendTop, _extendBottom) = (top, bottom, gridStep, spread, window, tieRatio, extendTop, extendBottom);
     }
 
     public static EndExtension Measure(DepthMapping optimal, double coreTop, double coreBottom, double gridStep, CoreOverhang overhang)
@@ -44,7 +44,7 @@ internal sealed class EndExtension
             double mean = logRatios.Average();
             spread = Math.Sqrt(logRatios.Sum(v => (v - mean) * (v - mean)) / (logRatios.Count - 1));
         }
-        return new EndExtension(coreTop, coreBottom, gridStep, Math.Min(spread, MaxSpread), window, overhang.Top > 0, overhang.Bottom > 0);
+        return new EndExtension(coreTop, coreBottom, gridStep, Math.Min(spread, MaxSpread), window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0);
     }
 
     /// <summary>The mapping continued to the core's ends; with <paramref name="rng"/> the rate ratio varies, without it it stays at the fitted one.</summary>
@@ -76,10 +76,9 @@ internal sealed class EndExtension
         double fit = Math.Min(Math.Max(2 * distance, MinFitSteps * _gridStep), Math.Abs(from - inner));
         double ratio = fit > 0 ? sign * (m.ToCompositeValue(from) - m.ToCompositeValue(from - sign * fit)) / fit : 1;
         // A short or poorly matched stretch can give an extreme ratio; keep it within a factor of
-        // MaxRatioDeparture of the whole aligned part's.
-        double overall = (m.CompositeKnots[^1] - m.CompositeKnots[0]) / Math.Max(1e-12, m.CoreKnots[^1] - m.CoreKnots[0]);
-        if (!(ratio > 0)) ratio = overall > 0 ? overall : 1;
-        if (overall > 0) ratio = Math.Clamp(ratio, overall / MaxRatioDeparture, overall * MaxRatioDeparture);
+        // MaxRatioDeparture of the ties' mean ratio.
+        if (!(ratio > 0)) ratio = _tieRatio;
+        ratio = Math.Clamp(ratio, _tieRatio / MaxRatioDeparture, _tieRatio * MaxRatioDeparture);
         int knots = Math.Clamp((int)Math.Ceiling(distance / _gridStep), 1, MaxWalkKnots);
         double dx = distance / knots, y = m.ToCompositeValue(from);
         double rho = Math.Exp(-dx / _window), innovation = _spread * Math.Sqrt(1 - rho * rho);
