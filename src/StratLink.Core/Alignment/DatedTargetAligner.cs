@@ -54,5 +54,27 @@ public sealed class TransferredAges(MappingEnsemble mapping, double origin, doub
     /// <summary>Age of ensemble member <paramref name="member"/> at a core depth.</summary>
     public double MemberAgeAt(int member, double coreDepth) => ToAge(Mapping.Member(member).ToCompositeValue(coreDepth));
 
+    /// <summary>
+    /// Transferred ages as age controls at the given core depths: a normal whose 1 sigma combines
+    /// the ensemble's spread (the 95% range / 3.92) and the target's own age error at that age
+    /// (<paramref name="targetAgeError"/>, same unit), in quadrature. This is the form in which they
+    /// join a core's other age controls.
+    /// </summary>
+    public IReadOnlyList<TransferredAge> Controls(IReadOnlyList<double> coreDepths, Func<double, double> targetAgeError)
+    {
+        var controls = new List<TransferredAge>(coreDepths.Count);
+        foreach (double z in coreDepths)
+        {
+            double age = AgeAt(z);
+            var (lo, hi) = AgeRange(z);
+            double spread = (hi - lo) / 3.92, error = targetAgeError(age);
+            controls.Add(new TransferredAge(z, age, Math.Sqrt(spread * spread + error * error)));
+        }
+        return controls;
+    }
+
     private double ToAge(double mapped) => (mapped - origin) / rate;
 }
+
+/// <summary>An age transferred to a core depth: mean and 1 sigma in the target's age unit.</summary>
+public readonly record struct TransferredAge(double CoreDepth, double Age, double Sigma);

@@ -65,6 +65,13 @@ public class DatedTargetAlignerTests(ITestOutputHelper output)
         double rms = Math.Sqrt(sq / depths.Length), coverage = (double)inside / depths.Length;
         double straight = Math.Sqrt(depths.Select((z, k) => stack[0].Age + (stack[^1].Age - stack[0].Age) * (z - depths[0]) / (depths[^1] - depths[0]) - published[k]).Sum(e => e * e) / depths.Length);
         output.WriteLine($"ODP 849 -> LR04 by d18O: RMS {rms:0.0} kyr against the published ages (constant rate between the ends: {straight:0.0} kyr); 95% band holds the published age at {coverage:P1} of {depths.Length} samples");
+
+        // As age controls with LR04's own age error (about 4 kyr over the last 1 Myr and 6 kyr before;
+        // Lisiecki and Raymo 2005, from memory): the share of published ages within 1.96 sigma.
+        var controls = ages.Controls(depths, age => age <= 1000 ? 4 : 6);
+        double held = controls.Select((c, k) => Math.Abs(c.Age - published[k]) <= 1.96 * c.Sigma ? 1.0 : 0.0).Average();
+        output.WriteLine($"as age controls (alignment spread and LR04 age error in quadrature): 95% interval holds the published age at {held:P1}");
+        Assert.All(controls, c => Assert.True(c.Sigma >= 4, $"sigma {c.Sigma:0.0} kyr at {c.CoreDepth} cm is below the target's own age error"));
         // Bounds: dtw must at least halve the constant-rate error, and stay within half a 41-kyr
         // obliquity cycle of the authors' tuning (the scale on which a tuning can be off by a cycle; common practice).
         Assert.True(rms <= 0.5 * straight, $"RMS {rms:0.0} kyr is not at most half the constant-rate {straight:0.0} kyr");
