@@ -8,7 +8,9 @@ namespace StratLink.Alignment;
 
 /// <summary>
 /// Aligns every core of a project to the reference core: the one entry point of both methods,
-/// <c>dtw</c> (default) and <c>ties</c> (straight lines between marker ties). Cores run in parallel;
+/// <c>dtw</c> (default) and <c>ties</c> (straight lines between marker ties). With three or more
+/// cores aligned by dtw, the site scale (<c>alignment.scale: site</c>) then aligns each
+/// again to the stack of the others (<see cref="SiteAligner"/>). Cores run in parallel;
 /// results are the same whatever the scheduling (each core's randomness is seeded from the run's
 /// seed and its id).
 /// </summary>
@@ -63,8 +65,11 @@ public static class CoreAligner
         {
             result[cores[k].Id] = mappings[k]!;
             diag[cores[k].Id] = diagnostics[k]!;
-            findings.AddRange(coreFindings[k]);
         }
+        if (settings.Method == AlignmentMethods.Dtw && settings.Scale == AlignmentScales.Site)
+            AlignToSite(project, cores, refSignals!, step, network, seed, result, diag, coreFindings, findings, ct);
+        else
+            foreach (var f in coreFindings) findings.AddRange(f);
         return new AlignmentResult(reference, settings.Method, result, findings, diag, settings.Method == AlignmentMethods.Dtw ? seed : null);
     }
 
@@ -78,17 +83,7 @@ public static class CoreAligner
             findings.Add(Warn("alignment.no-table", spec.Id, $"the table of core {spec.Id} could not be read; it is placed by its marker ties only"));
             return ByTies(p, spec, network, project.Tables, findings);
         }
-        var names = new List<string>();
-        var weights = new List<double>();
-        var candidates = CandidateSignals(spec, table, settings);
-        foreach (string name in candidates)
-        {
-            if (Array.IndexOf(refSignals.Signals, name) < 0) continue;
-            double w = settings.Signals.Count == 0 ? 1 : settings.Signals.First(s => s.Signal == name).Weight;
-            if (w <= 0) continue;
-            names.Add(name);
-            weights.Add(w);
-        }
+        var (names, weights) = SharedSignals(spec, table, settings, refSignals);
         if (names.Count == 0)
         {
             findings.Add(Warn("alignment.no-common-signal", spec.Id, $"core {spec.Id} shares no alignment signal with reference {refSignals.CoreId}; it is placed by its marker ties only"));
@@ -107,6 +102,56 @@ public static class CoreAligner
             findings.Add(Warn("alignment.dtw-failed", spec.Id, $"core {spec.Id} could not be aligned by dtw ({e.Message}); it is placed by its marker ties only"));
             return ByTies(p, spec, network, project.Tables, findings);
         }
+    }
+
+    /// <summary>The core's alignment signals that the reference also has, with their weights (none of weight 0).</summary>
+    private static (List<string> Names, List<double> Weights) SharedSignals(CoreSpec spec, CoreTable table, AlignmentSettings settings, PreparedSignals refSignals)
+    {
+        var names = new List<string>();
+        var weights = new List<double>();
+        foreach (string name in CandidateSignals(spec, table, settings))
+        {
+            if (Array.IndexOf(refSignals.Signals, name) < 0) continue;
+            double w = settings.Signals.Count == 0 ? 1 : settings.Signals.First(s => s.Signal == name).Weight;
+            if (w <= 0) continue;
+            names.Add(name);
+            weights.Add(w);
+        }
+        return (names, weights);
+    }
+
+    /// <summary>
+    /// Site scale: the cores aligned by dtw aligned again, each to the stack of all the others, until
+    /// the mappings settle; their findings are those of the final round.
+    /// </summary>
+    private static void AlignToSite(LoadedProject project, List<CoreSpec> cores, PreparedSignals refSignals, double step, TieNetwork network, int seed,
+        Dictionary<string, MappingEnsemble> result, Dictionary<string, CoreAlignmentDiagnostics> diag, FindingList[] coreFindings, FindingList findings, CancellationToken ct)
+    {
+        var p = project.Project;
+        var members = new List<SiteAligner.Member>();
+        for (int k = 0; k < cores.Count; k++)
+        {
+            var spec = cores[k];
+            if (diag[spec.Id].Method != "dtw" || !project.Tables.TryGetValue(spec.Id, out var table)) continue;
+            var (names, weights) = SharedSignals(spec, table, p.Alignment, refSignals);
+            members.Add(new SiteAligner.Member(spec.Id, SignalPreparation.Prepare(table, Unusable(spec), names, step, p.Alignment), [.. weights], network.TiesOf(spec.Id)));
+        }
+        if (members.Count < 2)
+        {
+            foreach (var f in coreFindings) findings.AddRange(f);
+            return;
+        }
+        for (int k = 0; k < cores.Count; k++)
+            if (!members.Any(m => m.CoreId == cores[k].Id)) findings.AddRange(coreFindings[k]);
+        var (rounds, settled) = SiteAligner.Refine(refSignals, members, result, diag, DtwCoreOptions.From(p.Alignment, seed), p.DepthUnit, findings, ct);
+        if (!settled)
+            findings.Add(new Finding
+            {
+                Severity = Severity.Note,
+                Code = "alignment.site-unsettled",
+                Core = refSignals.CoreId,
+                Message = $"aligning every core to the stack of the others had not settled to one grid step after {rounds} rounds; the last round's mappings are used",
+            });
     }
 
     /// <summary>The <c>ties</c> method for one core: its straight-line-ties mapping, or the identity (with a warning) when it has no ties.</summary>

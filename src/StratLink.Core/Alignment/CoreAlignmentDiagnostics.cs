@@ -35,6 +35,9 @@ public sealed record CoreAlignmentDiagnostics
 
     public bool OpenEnd { get; init; }
 
+    /// <summary>Rounds of alignment to the stack of the other cores (0 = aligned to the reference only).</summary>
+    public int SiteRounds { get; init; }
+
     /// <summary>The optimal (least-cost) mapping; the ensemble's median is the one reported.</summary>
     public DepthMapping? Optimal { get; init; }
 }

@@ -33,11 +33,14 @@ public static class DtwCoreAligner
         if (core.Signals.Length != weights.Length || reference.Signals.Length != weights.Length)
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
+        var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit);
+        int recorded0 = overhang.Top, recorded1 = overhang.Top + reference.Count - 1;
+        if (overhang.Any) reference = overhang.Pad(reference);
         int n = core.Count, m = reference.Count;
         var boxes = TieBoxes(core, reference, ties, findings);
         options = ResolveOpenEnds(options, boxes, n, m, unit);
         var centre = CentreLine(boxes, n, m, options, unit);
-        (core, reference) = StandardiseOverOverlap(core, reference, centre, options.RobustStandardise);
+        (core, reference) = StandardiseOverOverlap(core, reference, centre, recorded0, recorded1, options.RobustStandardise);
         var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         double neutral = NeutralCost(cost, centre, n, m);
         cost = cost.WithNeutral(neutral);
@@ -76,7 +79,9 @@ public static class DtwCoreAligner
             double weight = 0;
             for (int s = 0; s < segments.Count; s++)
                 weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
-            completion = Math.Min(completion, optimal.Sum(p => p.Distance) / weight);
+            // Where the path runs through padding beyond the reference, those cells cost the neutral
+            // level and would raise the path's mean: take the mean over the cells it compares.
+            completion = Math.Min(completion, overhang.Any ? ComparedMean(cost, optimal, segments) : optimal.Sum(p => p.Distance) / weight);
             SolveSegments(completion);
         }
 
@@ -87,6 +92,12 @@ public static class DtwCoreAligner
         double temperature = Math.Max(meanCost * tau, 1e-12);
         var forced = segments.Skip(1).Select(g => (g.R0, g.C0)).ToArray();
         var optimalMapping = ToMapping(core, reference, cost, unit, pathI, pathJ, forced);
+        EndExtension? ends = null;
+        if (overhang.Any)
+        {
+            ends = EndExtension.Measure(optimalMapping, core.DepthAt(0), core.DepthAt(n - 1), core.Step, overhang);
+            optimalMapping = ends.Apply(optimalMapping, null);
+        }
         var diagnostics = new CoreAlignmentDiagnostics
         {
             CoreId = core.CoreId,
@@ -128,6 +139,7 @@ public static class DtwCoreAligner
         {
             var (mi, mj) = Join(pieces.Select(p => p[e]).ToArray());
             members[e] = ToMapping(core, reference, cost, unit, mi, mj, forced);
+            if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
         return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);
     }
@@ -201,15 +213,16 @@ public static class DtwCoreAligner
     /// level and spread wherever the reference's long-term trend moves its whole-core mean away from
     /// the shared interval's, and the path would slide to chase that offset.
     /// </summary>
-    private static (PreparedSignals Core, PreparedSignals Reference) StandardiseOverOverlap(PreparedSignals core, PreparedSignals reference, DepthMapping centre, bool robust)
+    private static (PreparedSignals Core, PreparedSignals Reference) StandardiseOverOverlap(PreparedSignals core, PreparedSignals reference, DepthMapping centre,
+        int recorded0, int recorded1, bool robust)
     {
-        int n = core.Count, m = reference.Count;
+        int n = core.Count;
         double c0 = centre.ToCompositeValue(0), c1 = centre.ToCompositeValue(n - 1);
-        int j0 = Math.Clamp((int)Math.Floor(Math.Min(c0, c1)), 0, m - 1), j1 = Math.Clamp((int)Math.Ceiling(Math.Max(c0, c1)), 0, m - 1);
+        int j0 = Math.Clamp((int)Math.Floor(Math.Min(c0, c1)), recorded0, recorded1), j1 = Math.Clamp((int)Math.Ceiling(Math.Max(c0, c1)), recorded0, recorded1);
         int i0 = 0, i1 = n - 1;
-        while (i0 < n - 1 && centre.ToCompositeValue(i0) < 0) i0++;
-        while (i1 > i0 && centre.ToCompositeValue(i1) > m - 1) i1--;
-        if (j0 > 0 || j1 < m - 1) reference = SignalPreparation.StandardiseOver(reference, j0, j1, robust);
+        while (i0 < n - 1 && centre.ToCompositeValue(i0) < recorded0) i0++;
+        while (i1 > i0 && centre.ToCompositeValue(i1) > recorded1) i1--;
+        if (j0 > recorded0 || j1 < recorded1) reference = SignalPreparation.StandardiseOver(reference, j0, j1, robust);
         if (i0 > 0 || i1 < n - 1) core = SignalPreparation.StandardiseOver(core, i0, i1, robust);
         return (core, reference);
     }
@@ -302,6 +315,22 @@ public static class DtwCoreAligner
             for (int k = start; k < pi.Length; k++) { ri.Add(pi[k]); rj.Add(pj[k]); }
         }
         return ([.. ri], [.. rj]);
+    }
+
+    /// <summary>Mean local cost over the cells of the segment paths where both sides have data.</summary>
+    private static double ComparedMean(SignalCost cost, DtwPath[] paths, List<Segment> segs)
+    {
+        double sum = 0;
+        int count = 0;
+        for (int s = 0; s < paths.Length; s++)
+            for (int k = 0; k < paths[s].Length; k++)
+            {
+                int i = paths[s].I[k] + segs[s].R0, j = paths[s].J[k] + segs[s].C0;
+                if (cost.IsMissing(i, j)) continue;
+                sum += cost.Cost(i, j);
+                count++;
+            }
+        return count > 0 ? sum / count : cost.Neutral;
     }
 
     /// <summary>Integrated autocorrelation time of the local costs along a path (cells where both sides have data).</summary>

@@ -69,7 +69,9 @@ public static class DemoSiteGenerator
         new("flood-2", MarkerKind.Flood, 2953.5, true, [3.0, 4.0, 3.0, 0]),
     ];
 
-    public static DemoSite Generate(int seed)
+    public static DemoSite Generate(int seed) => Generate(seed, DemoSiteShape.Shipped);
+
+    public static DemoSite Generate(int seed, DemoSiteShape shape)
     {
         var history = SiteHistory.Simulate(SeedStreams.For(seed, "history"), CoringAgeBP, HistoryYears,
             ar1Coefficient: 0.7, ar1StdDev: 1.0,
@@ -90,7 +92,8 @@ public static class DemoSiteGenerator
             var strat = CoreStratigraphy.Build(history.AgesBP, Rate(seed, plan, history.AgesBP, commonLogRate),
                 events.Select(e => (e.AgeBP, e.ThicknessIn(plan.Id))).ToList(), lostTop);
             double length = Uniform(geometry, plan.MinLength, plan.MaxLength);
-            if (plan.Id == ReferenceCore) referenceBaseAge = strat.AgeAt(length);
+            if (shape.LengthOf(plan.Id) is { } chosen) length = chosen;
+            else if (plan.Id == ReferenceCore) referenceBaseAge = strat.AgeAt(length);
             // Every core must end well above the reference core's base so its true composite depth exists.
             else length = Math.Min(length, strat.CoreDepthAtAge(referenceBaseAge - 150));
             // The freeze core should hold the youngest dated tephra, within its metre.
@@ -114,7 +117,7 @@ public static class DemoSiteGenerator
             double[] depths = SampleDepths(length, gaps);
             var signals = Signals(seed, plan, strat, history, events, depths, length, disturbed);
             tables[plan.Id] = new CoreTable(plan.Id, DepthUnit.Centimetre, depths, signals);
-            truths[plan.Id] = new CoreTruth(plan.Id, length, depths, strat, strata[ReferenceCore]);
+            truths[plan.Id] = new CoreTruth(plan.Id, length, depths, strat, strata[shape.Reference]);
             coreSpecs.Add(new CoreSpec
             {
                 Id = plan.Id,
@@ -138,7 +141,7 @@ public static class DemoSiteGenerator
             Ages = AgeControls(SeedStreams.For(seed, "ages"), events, markers),
             Alignment = new AlignmentSettings
             {
-                Reference = ReferenceCore,
+                Reference = shape.Reference,
                 Signals = [new SignalWeight("ms", 1.0), new SignalWeight("density", 0.5), new SignalWeight("ca_ti", 0.75)],
                 Window = 0.15,
                 Ensemble = 200,

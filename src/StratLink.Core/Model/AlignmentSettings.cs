@@ -49,6 +49,20 @@ public sealed record AlignmentSettings
 
     /// <summary>Seed of the alignment ensemble; null = the age model's seed.</summary>
     public int? Seed { get; init; }
+
+    /// <summary>
+    /// <c>reference</c> (default): every core is aligned to the reference core only; <c>site</c>: with
+    /// three or more cores aligned by dtw, every core is then aligned again to the stack of all the
+    /// others until the mappings settle. Either way composite depth is the reference's depth where it has data.
+    /// </summary>
+    public string Scale { get; init; } = AlignmentScales.Reference;
+}
+
+public static class AlignmentScales
+{
+    public const string Site = "site";
+    public const string Reference = "reference";
+    public static readonly IReadOnlyList<string> All = [Site, Reference];
 }
 
 public static class StandardiseMethods

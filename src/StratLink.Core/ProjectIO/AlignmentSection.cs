@@ -39,6 +39,7 @@ internal static class AlignmentSection
             OpenBegin = BoolOrAuto(m, "open_begin"),
             OpenEnd = BoolOrAuto(m, "open_end"),
             Seed = m.Int("seed"),
+            Scale = m.String("scale") ?? s.Scale,
         };
         if (s.Window is <= 0 or > 1) m.Error("window", $"the band half-width is a fraction of the longer core, between 0 and 1 (found {s.Window})");
         if (s.Ensemble < 0) m.Error("ensemble", "the ensemble size cannot be negative");
@@ -48,6 +49,7 @@ internal static class AlignmentSection
         else s = s with { Pattern = pattern.Name };
         if (s.Step is <= 0) m.Error("step", $"the grid step must be positive (found {s.Step})");
         if (!StandardiseMethods.All.Contains(s.Standardise)) m.Error("standardise", $"unknown standardisation '{s.Standardise}' ({string.Join(" or ", StandardiseMethods.All)})");
+        if (!AlignmentScales.All.Contains(s.Scale)) m.Error("scale", $"unknown alignment scale '{s.Scale}' ({string.Join(" or ", AlignmentScales.All)})");
         if (s.RatePenalty < 0) m.Error("rate_penalty", "the rate-change penalty cannot be negative (0 = off)");
         m.Finish();
         return s;
@@ -83,6 +85,7 @@ internal static class AlignmentSection
         if (s.OpenBegin is bool ob) n.Add("open_begin", YamlOut.Bool(ob));
         if (s.OpenEnd is bool oe) n.Add("open_end", YamlOut.Bool(oe));
         if (s.Seed is int seed) n.Add("seed", YamlOut.Num(seed));
+        if (s.Scale != d.Scale) n.Add("scale", YamlOut.Str(s.Scale));
         return n;
     }
 }

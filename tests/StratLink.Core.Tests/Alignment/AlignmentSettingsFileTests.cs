@@ -32,17 +32,19 @@ public class AlignmentSettingsFileTests
               open_begin: true
               open_end: auto
               seed: 99
+              scale: site
             """.Replace("\n    ", "\n  ");
         var doc = ProjectReader.Parse(text, "p.yaml");
         Assert.False(doc.Problems.HasErrors, string.Join("\n", doc.Problems));
         var a = doc.Project!.Alignment;
         Assert.Equal(("asymmetric", 0.5, "robust", true, true, 0.25, true, true, 99), (a.Pattern, a.Step!.Value, a.Standardise, a.Derivative, a.Detrend, a.RatePenalty, a.OpenBegin!.Value, a.OpenEnd is null, a.Seed!.Value));
+        Assert.Equal(AlignmentScales.Site, a.Scale);
         var again = ProjectReader.Parse(ProjectWriter.ToYaml(doc.Project), "p.yaml");
         Assert.False(again.Problems.HasErrors, string.Join("\n", again.Problems));
         Assert.Equal(a, again.Project!.Alignment);
 
         string plain = ProjectWriter.ToYaml(ProjectReader.Parse(Head, "p.yaml").Project!);
-        foreach (string key in new[] { "pattern", "step:", "standardise", "derivative", "detrend", "rate_penalty", "open_begin", "open_end", "seed" })
+        foreach (string key in new[] { "pattern", "step:", "standardise", "derivative", "detrend", "rate_penalty", "open_begin", "open_end", "seed", "scale" })
             Assert.DoesNotContain(key, plain.Split("alignment:")[1].Split("composite:")[0]);
         Assert.Equal(new AlignmentSettings { Reference = "A" }, ProjectReader.Parse(plain, "p.yaml").Project!.Alignment);
     }
@@ -53,6 +55,7 @@ public class AlignmentSettingsFileTests
     [InlineData("step: -1", "alignment.step", "positive")]
     [InlineData("standardise: minmax", "alignment.standardise", "zscore or robust")]
     [InlineData("rate_penalty: -2", "alignment.rate_penalty", "cannot be negative")]
+    [InlineData("scale: global", "alignment.scale", "site or reference")]
     public void Bad_values_are_errors_naming_the_key_and_line(string lines, string field, string words)
     {
         var doc = ProjectReader.Parse(Head + "  " + lines + "\n", "p.yaml");

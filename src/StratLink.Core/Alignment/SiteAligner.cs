@@ -1,0 +1,113 @@
+using StratLink.Checks;
+using StratLink.Quantities;
+
+namespace StratLink.Alignment;
+
+/// <summary>
+/// Alignment of the whole site rather than of each core to the reference alone: starting from the
+/// alignments to the reference, every other core is aligned again to the stack of all the other
+/// cores (their standardised signals carried to composite depth by their current median mappings
+/// and averaged where several overlap), and the stack is rebuilt from the new mappings, until 95% of
+/// the samples of all cores move by at most one grid step in a round (or <see cref="MaxRounds"/> rounds). This is
+/// iterative refinement of a multiple alignment against its own consensus, as in multiple sequence
+/// alignment (progressive alignment, Feng and Doolittle 1987; iterative refinement, e.g. Gotoh 1996
+/// - from memory) and in stacking palaeoclimate records by aligning each to the current stack
+/// (Lisiecki and Lisiecki 2002; Lisiecki and Raymo 2005). Leaving each core out of its own stack keeps
+/// it from matching itself. The reference keeps the identity, so composite depth is still its depth
+/// where it has data; a core that runs past the reference is matched there to the cores that reach
+/// that far, and only what no other core reaches is continued at its rate ratio. All cores map to one
+/// composite, so mapping A to C directly and through B agree by construction.
+/// </summary>
+internal static class SiteAligner
+{
+    public const int MaxRounds = 4;
+
+    /// <summary>Settled when this percentile of the samples' shifts in a round is within one grid step (the ensemble median jitters by a step here and there).</summary>
+    private const double SettledPercentile = 95;
+
+    /// <summary>One core taking part: its prepared signals (signal names of the reference's list), weights, ties.</summary>
+    public sealed record Member(string CoreId, PreparedSignals Signals, double[] Weights, IReadOnlyList<TiePoint> Ties);
+
+    /// <summary>Refines <paramref name="mappings"/> in place; returns the rounds run and whether the mappings settled.</summary>
+    public static (int Rounds, bool Settled) Refine(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings,
+        Dictionary<string, CoreAlignmentDiagnostics> diagnostics, DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct)
+    {
+        double step = reference.Step;
+        var parallel = new ParallelOptions { CancellationToken = ct };
+        for (int round = 1; round <= MaxRounds; round++)
+        {
+            var current = mappings.ToDictionary(kv => kv.Key, kv => kv.Value.Median, StringComparer.Ordinal);
+            var next = new (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[members.Count];
+            Parallel.For(0, members.Count, parallel, k =>
+            {
+                var c = members[k];
+                var others = new List<(PreparedSignals, DepthMapping)> { (reference, current[reference.CoreId]) };
+                others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
+                var stack = Stack(reference.CoreId, reference.Signals, others, step).Select(c.Signals.Signals);
+                var local = new FindingList();
+                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct);
+                next[k] = (m, d, local);
+            });
+            var shifts = new List<double>();
+            for (int k = 0; k < members.Count; k++)
+            {
+                var c = members[k];
+                var old = current[c.CoreId];
+                var now = next[k].Mapping.Median;
+                for (int i = 0; i < c.Signals.Count; i++)
+                    shifts.Add(Math.Abs(now.ToCompositeValue(c.Signals.DepthAt(i)) - old.ToCompositeValue(c.Signals.DepthAt(i))));
+                mappings[c.CoreId] = next[k].Mapping;
+                diagnostics[c.CoreId] = next[k].Diagnostics with { SiteRounds = round };
+            }
+            shifts.Sort();
+            double moved = Statistics.PercentileSorted(shifts.ToArray(), SettledPercentile);
+            if (moved <= step || round == MaxRounds)
+            {
+                foreach (var n in next) findings.AddRange(n.Findings);
+                return (round, moved <= step);
+            }
+        }
+        return (MaxRounds, false);
+    }
+
+    /// <summary>
+    /// Signals of <paramref name="cores"/> on the composite grid (the reference's step, spanning every
+    /// core's mapped extent): at each row the mean, over cores reaching it, of the core's value at the
+    /// core depth the mapping gives there (linear between grid rows; missing where either is).
+    /// </summary>
+    internal static PreparedSignals Stack(string id, string[] signals, IReadOnlyList<(PreparedSignals Signals, DepthMapping Map)> cores, double step)
+    {
+        double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
+        foreach (var (s, map) in cores)
+        {
+            top = Math.Min(top, map.ToCompositeValue(s.DepthAt(0)));
+            bottom = Math.Max(bottom, map.ToCompositeValue(s.DepthAt(s.Count - 1)));
+        }
+        top = Math.Floor(top / step) * step;
+        int count = (int)Math.Ceiling((bottom - top) / step - 1e-9) + 1, dims = signals.Length;
+        var sum = new double[count * dims];
+        var n = new int[count * dims];
+        foreach (var (s, map) in cores)
+        {
+            var own = s.Select(signals);
+            int k0 = Math.Max(0, (int)Math.Ceiling((map.ToCompositeValue(s.DepthAt(0)) - top) / step - 1e-9));
+            int k1 = Math.Min(count - 1, (int)Math.Floor((map.ToCompositeValue(s.DepthAt(s.Count - 1)) - top) / step + 1e-9));
+            for (int k = k0; k <= k1; k++)
+            {
+                double r = (map.ToCoreValue(top + k * step) - s.Top) / s.Step;
+                int i0 = Math.Clamp((int)Math.Floor(r), 0, s.Count - 1), i1 = Math.Min(i0 + 1, s.Count - 1);
+                double f = Math.Clamp(r - i0, 0, 1);
+                for (int d = 0; d < dims; d++)
+                {
+                    double v = own.Value(i0, d) * (1 - f) + own.Value(i1, d) * f;
+                    if (double.IsNaN(v)) continue;
+                    sum[k * dims + d] += v;
+                    n[k * dims + d]++;
+                }
+            }
+        }
+        var values = new double[count * dims];
+        for (int x = 0; x < values.Length; x++) values[x] = n[x] > 0 ? sum[x] / n[x] : double.NaN;
+        return new PreparedSignals(id, top, step, count, signals, values);
+    }
+}
