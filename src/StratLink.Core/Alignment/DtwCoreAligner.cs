@@ -1,5 +1,6 @@
 using StratLink.Checks;
 using StratLink.Quantities;
+using StratLink.Workflows;
 
 namespace StratLink.Alignment;
 
@@ -106,6 +107,7 @@ public static class DtwCoreAligner
         if (options.Ensemble == 0) return (new MappingEnsemble(optimalMapping, []), diagnostics);
 
         // Pass 2: the posterior per segment and its sampled pieces; member e joins piece e of every segment.
+        using var ensembleStage = StageTimes.Measure("ensemble");
         var pieces = new (int[] I, int[] J)[segments.Count][];
         Parallel.For(0, segments.Count, parallel, s =>
         {
