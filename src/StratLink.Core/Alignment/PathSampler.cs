@@ -1,3 +1,5 @@
+using System.Buffers;
+
 namespace StratLink.Alignment;
 
 /// <summary>
@@ -11,24 +13,25 @@ namespace StratLink.Alignment;
 /// tiny values a sampled path can still need to zero).
 /// Paths are drawn by stochastic backtracking (forward filtering, backward sampling): from the end
 /// cell, production p is chosen with probability exp(F(origin_p) - cost_p / T - F(i,j)), which draws
-/// paths exactly from the posterior given the table.
+/// paths exactly from the posterior given the table. The table is rented from the shared pool and
+/// returned on <see cref="Dispose"/>, so the segments and cores of a run reuse the same pages.
 /// </summary>
-internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
+internal sealed class PathSampler<TCost> : IDisposable where TCost : struct, ILocalCost
 {
     private readonly TCost _cost;
     private readonly Production[] _prods;
     private readonly Band _band;
     private readonly DtwOptions _options;
     private readonly double _invT;
-    private readonly byte[]? _directions;
-    private readonly float[] _logP;
+    private readonly StepDirections? _directions;
+    private float[] _logP;
     private readonly double[] _rowLogScale;
     private readonly double _endBiasPerColumn;
     private readonly double _startCostPerColumn;
 
     /// <param name="directions">The optimal run's directions, needed only when a rate penalty is on.</param>
     /// <param name="endBiasPerColumn">Log-weight added per reference column when an open end is drawn (see <see cref="DtwCoreAligner"/>).</param>
-    public PathSampler(TCost cost, StepPattern pattern, Band band, DtwOptions options, double temperature, byte[]? directions, double endBiasPerColumn, CancellationToken ct)
+    public PathSampler(TCost cost, StepPattern pattern, Band band, DtwOptions options, double temperature, StepDirections? directions, double endBiasPerColumn, CancellationToken ct)
     {
         _cost = cost;
         _prods = [.. pattern.Productions];
@@ -39,7 +42,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
         _endBiasPerColumn = endBiasPerColumn;
         _startCostPerColumn = options.CompletionCostPerColumn ?? 0;
         if (band.Cells > Array.MaxLength) throw new ArgumentException($"The band holds {band.Cells} cells, too many for one ensemble table; narrow the window or add ties.");
-        _logP = GC.AllocateUninitializedArray<float>((int)band.Cells);
+        _logP = ArrayPool<float>.Shared.Rent((int)Math.Max(1, band.Cells));
         _rowLogScale = new double[band.Rows];
         Forward(ct);
     }
@@ -49,9 +52,15 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
 
     private double PenaltyOf(Production prod, int oi, int oj)
     {
-        if (_directions is null || oi < 0) return 0;
-        byte od = _directions[_band.Index(oi, oj)];
-        return od == 0 ? 0 : _options.RatePenalty * Math.Abs(prod.Angle - _prods[od - 1].Angle) / DtwSolver.QuarterTurn;
+        // The start cell has no production of its own to turn from.
+        if (_directions is null || oi < 0 || (oi == 0 && oj == 0 && !_options.OpenBegin)) return 0;
+        return _options.RatePenalty * Math.Abs(prod.Angle - _prods[_directions[oi, oj]].Angle) / DtwSolver.QuarterTurn;
+    }
+
+    public void Dispose()
+    {
+        if (_logP.Length > 0) ArrayPool<float>.Shared.Return(_logP);
+        _logP = [];
     }
 
     private void Forward(CancellationToken ct)
