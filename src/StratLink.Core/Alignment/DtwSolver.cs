@@ -92,6 +92,7 @@ public static class DtwSolver
     /// distances and paths equal the general loop's bit for bit. Under an open begin the row before
     /// the first holds the completion cost of the reference columns skipped.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double[] FillThreeMoves<TCost>(TCost cost, Band band, DtwOptions options, double wDiagonal, double wLeft, double wUp,
         StepDirections dirs, CancellationToken ct)
         where TCost : struct, ILocalCost
