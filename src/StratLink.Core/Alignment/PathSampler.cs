@@ -28,6 +28,8 @@ internal sealed class PathSampler<TCost> : IDisposable where TCost : struct, ILo
     private readonly double[] _rowLogScale;
     private readonly double _endBiasPerColumn;
     private readonly double _startCostPerColumn;
+    private int[]? _pathI;
+    private int[]? _pathJ;
 
     /// <param name="directions">The optimal run's directions, needed only when a rate penalty is on.</param>
     /// <param name="endBiasPerColumn">Log-weight added per reference column when an open end is drawn (see <see cref="DtwCoreAligner"/>).</param>
@@ -189,9 +191,14 @@ internal sealed class PathSampler<TCost> : IDisposable where TCost : struct, ILo
         int n = _band.Rows, m = _band.Columns;
         int i = n - 1, j = m - 1;
         if (_options.OpenEnd) j = SampleEnd(rng);
-        var pi = new List<int>(n + m);
-        var pj = new List<int>(n + m);
-        pi.Add(i); pj.Add(j);
+        // The path is traced from its end, so cells go into the scratch rows from the back; only the
+        // part used is copied out. A path visits at most n + m cells.
+        _pathI ??= new int[n + m];
+        _pathJ ??= new int[n + m];
+        var pi = _pathI;
+        var pj = _pathJ;
+        int k = n + m;
+        pi[--k] = i; pj[k] = j;
         Span<double> l = stackalloc double[_prods.Length];
         while (!(i == 0 && j == 0 && !_options.OpenBegin))
         {
@@ -212,16 +219,14 @@ internal sealed class PathSampler<TCost> : IDisposable where TCost : struct, ILo
             for (int s = cells.Length - 2; s >= 0; s--)
             {
                 int ci = i - cells[s].BackI;
-                if (ci >= 0) { pi.Add(ci); pj.Add(j - cells[s].BackJ); }
+                if (ci >= 0) { pi[--k] = ci; pj[k] = j - cells[s].BackJ; }
             }
             i -= prod.OriginI;
             j -= prod.OriginJ;
             if (i < 0) break;
-            pi.Add(i); pj.Add(j);
+            pi[--k] = i; pj[k] = j;
         }
-        pi.Reverse();
-        pj.Reverse();
-        return ([.. pi], [.. pj]);
+        return (pi.AsSpan(k).ToArray(), pj.AsSpan(k).ToArray());
     }
 
     private int SampleEnd(Random rng)

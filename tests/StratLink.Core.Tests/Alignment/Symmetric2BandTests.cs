@@ -13,14 +13,6 @@ namespace StratLink.Tests.Alignment;
 /// </summary>
 public class Symmetric2BandTests
 {
-    private static double[] Walk(Random rng, int n)
-    {
-        var x = new double[n];
-        double v = 0;
-        for (int i = 0; i < n; i++) { v += rng.NextDouble() - 0.5; x[i] = v; }
-        return x;
-    }
-
     private static (double Distance, List<(int I, int J)> Path) Textbook(double[] x, double[] y, Band band, double? openBeginCost)
     {
         int n = x.Length, m = y.Length;
@@ -70,8 +62,8 @@ public class Symmetric2BandTests
     public void ThreeMoveLoopMatchesTheTextbookRecurrence(int n, int m)
     {
         var rng = new Random(n * 1000 + m);
-        var x = Walk(rng, n);
-        var y = Walk(rng, m);
+        var x = RandomWalks.Walk(rng, n);
+        var y = RandomWalks.Walk(rng, m);
         var bands = new List<Band> { Band.Full(n, m) };
         foreach (int w in new[] { 0, 3, 10 })
             if (Math.Abs(n - m) <= w) bands.Add(Band.SakoeChiba(n, m, w));
