@@ -32,11 +32,12 @@ trap 'rm -rf "$work"' EXIT
 
 publish() { dotnet publish "$root/src/StratLink.Cli" -c Release -r linux-x64 --self-contained false -o "$work/stratlink" -v q -nologo >/dev/null; }
 
-# run LABEL CMD...: runs CMD under /usr/bin/time, appends "LABEL wall_s max_rss_kb" to $work/times.
+# run LABEL CMD...: runs CMD under /usr/bin/time, appends "LABEL wall_s max_rss_kb cpu_s" to $work/times.
 run() {
   local label=$1; shift
-  /usr/bin/time -f "%e %M" -o "$work/t" "$@" >"$work/$label.out" 2>"$work/$label.err" || { cat "$work/$label.err" >&2; exit 1; }
-  echo "$label $(cat "$work/t")" >>"$work/times"
+  /usr/bin/time -f "%e %M %U %S" -o "$work/t" "$@" >"$work/$label.out" 2>"$work/$label.err" || { cat "$work/$label.err" >&2; exit 1; }
+  read -r wall rss user sys <"$work/t"
+  echo "$label $wall $rss $(/usr/bin/python3 -c "import sys; print(float(sys.argv[1]) + float(sys.argv[2]))" "$user" "$sys")" >>"$work/times"
 }
 
 median() { /usr/bin/python3 -c 'import sys, statistics; print(statistics.median(float(v) for v in sys.argv[1:]))' "$@"; }
@@ -114,6 +115,8 @@ build)
   echo "cold build of the demo, median of $rounds alternating rounds: this tree $(median $(col new 2)) s, $rev $(median $(col old 2)) s," \
     "ratio $(/usr/bin/python3 -c "import sys; print(f'{float(sys.argv[1]) / float(sys.argv[2]):.2f}')" "$(median $(col new 2))" "$(median $(col old 2))");" \
     "peak RSS $(median $(col new 3)) KB against $(median $(col old 3)) KB"
+  echo "process CPU seconds (user + system; steadier than wall on a loaded machine): this tree $(median $(col new 4)), $rev $(median $(col old 4))," \
+    "ratio $(/usr/bin/python3 -c "import sys; print(f'{float(sys.argv[1]) / float(sys.argv[2]):.2f}')" "$(median $(col new 4))" "$(median $(col old 4))")"
   differ=0
   for f in $(cd "$work/out-old" && find . -type f | sort); do
     if [ "$f" = ./run.json ]; then
