@@ -14,7 +14,7 @@ namespace StratLink.Bench;
 /// <summary>
 /// Alignment benchmarks (not tests): symmetric1 DTW with full path against mlpy.dtw_std on the same
 /// seeded random walks, and a two-core alignment with ties and a 200-path ensemble.
-/// Usage: StratLink.Bench [pair [N ...]] [cores]
+/// Usage: StratLink.Bench [pair [N ...]] [cores] [kernel N SEED]
 /// </summary>
 public static class Program
 {
@@ -30,6 +30,11 @@ public static class Program
             Pair(sizes.Length > 0 ? sizes : [2000, 5000, 10000]);
         }
         if (what.Contains("cores")) Cores();
+        if (what.Contains("kernel"))
+        {
+            var rest = what.SkipWhile(a => a != "kernel").Skip(1).Select(int.Parse).ToArray();
+            Kernel(rest.Length > 0 ? rest[0] : 10000, rest.Length > 1 ? rest[1] : 1);
+        }
         return 0;
     }
 
@@ -83,6 +88,29 @@ public static class Program
             if (Math.Abs(r.Distance - mlpyDistance) > 1e-9 * mlpyDistance) Console.WriteLine($"  DISTANCES DIFFER: ours {r.Distance:R}, mlpy {mlpyDistance:R}");
         }
         Directory.Delete(dir, true);
+    }
+
+    /// <summary>
+    /// The in-process kernel alone, for bench/whole-process.sh to set beside the C rolling-row loop:
+    /// symmetric1 with the full path on random walks of n samples; prints the distance and ns per
+    /// cell (best of 3 after a warm-up, process CPU time).
+    /// </summary>
+    private static void Kernel(int n, int seed)
+    {
+        var rng = new Random(seed);
+        var (x, y) = (RandomWalk(rng, n), RandomWalk(rng, n));
+        var options = new PairOptions { Pattern = StepPattern.Symmetric1 };
+        var warmUntil = Stopwatch.StartNew();
+        while (warmUntil.ElapsedMilliseconds < 600) PairAligner.Align(x.AsSpan(0, 500).ToArray(), y.AsSpan(0, 500).ToArray(), options);
+        Thread.Sleep(300);
+        double best = double.MaxValue, distance = 0;
+        for (int rep = 0; rep < 3; rep++)
+        {
+            var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+            distance = PairAligner.Align(x, y, options).Distance;
+            best = Math.Min(best, (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds);
+        }
+        Console.WriteLine($"{distance:R} {best * 1e9 / ((double)n * n):0.000}");
     }
 
     /// <summary>Best of three CPU timings of mlpy.dtw_std(x, y, dist_only=False) in /usr/bin/python3.</summary>

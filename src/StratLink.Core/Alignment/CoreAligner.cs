@@ -40,7 +40,7 @@ public static class CoreAligner
             step = settings.Step ?? SignalPreparation.MedianSpacing(refTable.Depths);
             if (!(step > 0)) throw new InvalidOperationException($"Reference core {reference} has too few samples to set a grid step; give alignment.step.");
             var refSpec = p.FindCore(reference)!;
-            refSignals = SignalPreparation.Prepare(refTable, Unusable(refSpec), CandidateSignals(refSpec, refTable, settings), step, settings);
+            refSignals = StageTimes.Measure("prepare", () => SignalPreparation.Prepare(refTable, Unusable(refSpec), CandidateSignals(refSpec, refTable, settings), step, settings));
         }
 
         int done = 0;
@@ -91,11 +91,12 @@ public static class CoreAligner
         }
         try
         {
-            var coreSignals = SignalPreparation.Prepare(table, Unusable(spec), names, step, settings);
+            var coreSignals = StageTimes.Measure("prepare", () => SignalPreparation.Prepare(table, Unusable(spec), names, step, settings));
             var ties = network.TiesOf(spec.Id);
             if (ties.Count == 0)
                 findings.Add(new Finding { Severity = Severity.Note, Code = "alignment.dtw-only", Core = spec.Id, Message = $"core {spec.Id} shares no marker with the reference or a tied core; it is aligned by its signals alone" });
-            return DtwCoreAligner.Align(coreSignals, refSignals.Select(names), [.. weights], ties, DtwCoreOptions.From(settings, seed), p.DepthUnit, findings, ct);
+            using (StageTimes.Measure("align"))
+                return DtwCoreAligner.Align(coreSignals, refSignals.Select(names), [.. weights], ties, DtwCoreOptions.From(settings, seed), p.DepthUnit, findings, ct);
         }
         catch (Exception e) when (e is InvalidOperationException or ArgumentException)
         {

@@ -1,5 +1,6 @@
 using StratLink.Checks;
 using StratLink.Quantities;
+using StratLink.Workflows;
 
 namespace StratLink.Alignment;
 
@@ -52,7 +53,7 @@ public static class DtwCoreAligner
 
         // Pass 1: optimal path per segment (independent given the exact ties).
         var optimal = new DtwPath[segments.Count];
-        var directions = new byte[segments.Count][];
+        var directions = new StepDirections[segments.Count];
         var slices = new Band[segments.Count];
         var parallel = new ParallelOptions { CancellationToken = ct };
         void SolveSegments(double completionCost) => Parallel.For(0, segments.Count, parallel, s =>
@@ -64,6 +65,7 @@ public static class DtwCoreAligner
                 var (path, dirs) = DtwSolver.SolveKeepingDirections(cost.At(g.R0, g.C0), options.Pattern, slices[s], g.Options(options, completionCost), ct);
                 optimal[s] = path;
                 if (options.RatePenalty > 0) directions[s] = dirs;
+                else dirs.Dispose();
             }
             catch (InvalidOperationException e)
             {
@@ -117,13 +119,14 @@ public static class DtwCoreAligner
         if (options.Ensemble == 0) return (new MappingEnsemble(optimalMapping, []), diagnostics);
 
         // Pass 2: the posterior per segment and its sampled pieces; member e joins piece e of every segment.
+        using var ensembleStage = StageTimes.Measure("ensemble");
         var pieces = new (int[] I, int[] J)[segments.Count][];
         Parallel.For(0, segments.Count, parallel, s =>
         {
             var g = segments[s];
             var o = g.Options(options, completion);
             double endBias = o.OpenEnd ? completion / temperature : 0; // the completion cost of the columns left after the end
-            var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
+            using var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
             var rng = new Random(Seeds.Derive(options.Seed, core.CoreId, s));
             var drawn = new (int[] I, int[] J)[options.Ensemble];
             for (int e = 0; e < drawn.Length; e++)

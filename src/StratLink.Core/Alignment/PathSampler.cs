@@ -1,3 +1,5 @@
+using System.Buffers;
+
 namespace StratLink.Alignment;
 
 /// <summary>
@@ -11,24 +13,27 @@ namespace StratLink.Alignment;
 /// tiny values a sampled path can still need to zero).
 /// Paths are drawn by stochastic backtracking (forward filtering, backward sampling): from the end
 /// cell, production p is chosen with probability exp(F(origin_p) - cost_p / T - F(i,j)), which draws
-/// paths exactly from the posterior given the table.
+/// paths exactly from the posterior given the table. The table is rented from the shared pool and
+/// returned on <see cref="Dispose"/>, so the segments and cores of a run reuse the same pages.
 /// </summary>
-internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
+internal sealed class PathSampler<TCost> : IDisposable where TCost : struct, ILocalCost
 {
     private readonly TCost _cost;
     private readonly Production[] _prods;
     private readonly Band _band;
     private readonly DtwOptions _options;
     private readonly double _invT;
-    private readonly byte[]? _directions;
-    private readonly float[] _logP;
+    private readonly StepDirections? _directions;
+    private float[] _logP;
     private readonly double[] _rowLogScale;
     private readonly double _endBiasPerColumn;
     private readonly double _startCostPerColumn;
+    private int[]? _pathI;
+    private int[]? _pathJ;
 
     /// <param name="directions">The optimal run's directions, needed only when a rate penalty is on.</param>
     /// <param name="endBiasPerColumn">Log-weight added per reference column when an open end is drawn (see <see cref="DtwCoreAligner"/>).</param>
-    public PathSampler(TCost cost, StepPattern pattern, Band band, DtwOptions options, double temperature, byte[]? directions, double endBiasPerColumn, CancellationToken ct)
+    public PathSampler(TCost cost, StepPattern pattern, Band band, DtwOptions options, double temperature, StepDirections? directions, double endBiasPerColumn, CancellationToken ct)
     {
         _cost = cost;
         _prods = [.. pattern.Productions];
@@ -39,7 +44,7 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
         _endBiasPerColumn = endBiasPerColumn;
         _startCostPerColumn = options.CompletionCostPerColumn ?? 0;
         if (band.Cells > Array.MaxLength) throw new ArgumentException($"The band holds {band.Cells} cells, too many for one ensemble table; narrow the window or add ties.");
-        _logP = GC.AllocateUninitializedArray<float>((int)band.Cells);
+        _logP = ArrayPool<float>.Shared.Rent((int)Math.Max(1, band.Cells));
         _rowLogScale = new double[band.Rows];
         Forward(ct);
     }
@@ -49,9 +54,15 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
 
     private double PenaltyOf(Production prod, int oi, int oj)
     {
-        if (_directions is null || oi < 0) return 0;
-        byte od = _directions[_band.Index(oi, oj)];
-        return od == 0 ? 0 : _options.RatePenalty * Math.Abs(prod.Angle - _prods[od - 1].Angle) / DtwSolver.QuarterTurn;
+        // The start cell has no production of its own to turn from.
+        if (_directions is null || oi < 0 || (oi == 0 && oj == 0 && !_options.OpenBegin)) return 0;
+        return _options.RatePenalty * Math.Abs(prod.Angle - _prods[_directions[oi, oj]].Angle) / DtwSolver.QuarterTurn;
+    }
+
+    public void Dispose()
+    {
+        if (_logP.Length > 0) ArrayPool<float>.Shared.Return(_logP);
+        _logP = [];
     }
 
     private void Forward(CancellationToken ct)
@@ -180,9 +191,14 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
         int n = _band.Rows, m = _band.Columns;
         int i = n - 1, j = m - 1;
         if (_options.OpenEnd) j = SampleEnd(rng);
-        var pi = new List<int>(n + m);
-        var pj = new List<int>(n + m);
-        pi.Add(i); pj.Add(j);
+        // The path is traced from its end, so cells go into the scratch rows from the back; only the
+        // part used is copied out. A path visits at most n + m cells.
+        _pathI ??= new int[n + m];
+        _pathJ ??= new int[n + m];
+        var pi = _pathI;
+        var pj = _pathJ;
+        int k = n + m;
+        pi[--k] = i; pj[k] = j;
         Span<double> l = stackalloc double[_prods.Length];
         while (!(i == 0 && j == 0 && !_options.OpenBegin))
         {
@@ -203,16 +219,14 @@ internal sealed class PathSampler<TCost> where TCost : struct, ILocalCost
             for (int s = cells.Length - 2; s >= 0; s--)
             {
                 int ci = i - cells[s].BackI;
-                if (ci >= 0) { pi.Add(ci); pj.Add(j - cells[s].BackJ); }
+                if (ci >= 0) { pi[--k] = ci; pj[k] = j - cells[s].BackJ; }
             }
             i -= prod.OriginI;
             j -= prod.OriginJ;
             if (i < 0) break;
-            pi.Add(i); pj.Add(j);
+            pi[--k] = i; pj[k] = j;
         }
-        pi.Reverse();
-        pj.Reverse();
-        return ([.. pi], [.. pj]);
+        return (pi.AsSpan(k).ToArray(), pj.AsSpan(k).ToArray());
     }
 
     private int SampleEnd(Random rng)

@@ -8,8 +8,9 @@ namespace StratLink.Export;
 
 /// <summary>
 /// <c>run.json</c>: what is needed to reproduce a build bit for bit: program version, SHA-256 of
-/// the project file and of every input table, the settings and the random seed. No clock time, so
-/// two runs of the same inputs write identical files.
+/// the project file and of every input table, the settings and the random seed. No clock time but
+/// the optional stage table (seconds per stage, <c>stages_seconds</c>, last), so two runs of the
+/// same inputs write files that differ in those figures only.
 /// </summary>
 public static class RunManifest
 {
@@ -18,7 +19,7 @@ public static class RunManifest
         ?? typeof(RunManifest).Assembly.GetName().Version?.ToString() ?? "0";
 
     public static void Write(string path, ProjectDocument document, Project project, IReadOnlyDictionary<string, string> methods,
-        IEnumerable<string> outputFiles)
+        IEnumerable<string> outputFiles, IReadOnlyList<(string Stage, double Seconds)>? stages = null)
     {
         using var stream = new MemoryStream();
         using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true }))
@@ -50,6 +51,12 @@ public static class RunManifest
             w.WriteStartArray("outputs");
             foreach (string f in outputFiles) w.WriteStringValue(f);
             w.WriteEndArray();
+            if (stages is not null)
+            {
+                w.WriteStartObject("stages_seconds");
+                foreach (var (stage, seconds) in stages) w.WriteNumber(stage, Math.Round(seconds, 3));
+                w.WriteEndObject();
+            }
             w.WriteEndObject();
         }
         AtomicFile.WriteAllText(path, System.Text.Encoding.UTF8.GetString(stream.ToArray()) + "\n", keepBackup: false);

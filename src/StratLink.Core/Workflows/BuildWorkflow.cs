@@ -24,10 +24,10 @@ public static class BuildWorkflow
             throw new InvalidOperationException("The project has errors; 'stratlink check' lists them. Fix them before a build.");
         var alignment = CoreAligner.Align(project, Stage(progress, 0), ct);
         var varveProblems = new FindingList();
-        var varves = VarveLayerLoader.Load(project, varveProblems, ct);
-        var ages = AgeModeller.Run(project, alignment, varves, Stage(progress, 1), ct);
-        var composite = CompositeBuilder.Build(project, alignment, ages.IsBuilt ? ages : null, Stage(progress, 2), ct);
-        var checks = ChecksFor(project, alignment, ages, Stage(progress, 3), ct);
+        var varves = StageTimes.Measure("ages", () => VarveLayerLoader.Load(project, varveProblems, ct));
+        var ages = StageTimes.Measure("ages", () => AgeModeller.Run(project, alignment, varves, Stage(progress, 1), ct));
+        var composite = StageTimes.Measure("composite", () => CompositeBuilder.Build(project, alignment, ages.IsBuilt ? ages : null, Stage(progress, 2), ct));
+        var checks = StageTimes.Measure("checks", () => ChecksFor(project, alignment, ages, Stage(progress, 3), ct));
         progress?.Report(new WorkProgress("done", 1));
 
         var findings = new List<Finding>();
@@ -45,13 +45,17 @@ public static class BuildWorkflow
     {
         Directory.CreateDirectory(directory);
         var files = new List<string>();
-        files.AddRange(CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
-        foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
-            files.Add(AgesCsvWriter.WriteFile(directory, series));
-        files.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
+        using (StageTimes.Measure("write"))
+        {
+            files.AddRange(CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
+            foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
+                files.Add(AgesCsvWriter.WriteFile(directory, series));
+            files.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
+        }
         var relative = files.Select(f => Path.GetRelativePath(directory, f).Replace('\\', '/')).Order(StringComparer.Ordinal).ToList();
         relative.Add("run.json");
-        RunManifest.Write(Path.Combine(directory, "run.json"), result.Project.Document, result.Project.Project, result.Methods, relative);
+        RunManifest.Write(Path.Combine(directory, "run.json"), result.Project.Document, result.Project.Project, result.Methods, relative,
+            StageTimes.Current?.Snapshot());
         return relative;
     }
 

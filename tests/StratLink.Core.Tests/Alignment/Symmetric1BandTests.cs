@@ -12,14 +12,6 @@ namespace StratLink.Tests.Alignment;
 /// </summary>
 public class Symmetric1BandTests
 {
-    private static double[] Walk(Random rng, int n)
-    {
-        var x = new double[n];
-        double v = 0;
-        for (int i = 0; i < n; i++) { v += rng.NextDouble() - 0.5; x[i] = v; }
-        return x;
-    }
-
     private static (double Distance, List<(int I, int J)> Path) Textbook(double[] x, double[] y, Band band)
     {
         int n = x.Length, m = y.Length;
@@ -82,8 +74,8 @@ public class Symmetric1BandTests
     public void StripsMatchTheTextbookRecurrence(int n, int m)
     {
         var rng = new Random(n * 1000 + m);
-        var x = Walk(rng, n);
-        var y = Walk(rng, m);
+        var x = RandomWalks.Walk(rng, n);
+        var y = RandomWalks.Walk(rng, m);
         var bands = new List<Band> { Band.Full(n, m), Ragged(rng, n, m) };
         foreach (int w in new[] { 0, 1, 3, 10 })
             if (Math.Abs(n - m) <= w) bands.Add(Band.SakoeChiba(n, m, w));
