@@ -15,6 +15,7 @@ public static class ProjectCodes
     public const string UnknownMarker = "project.unknown-marker";
     public const string UnknownSignal = "project.unknown-signal";
     public const string IntervalInverted = "project.interval-inverted";
+    public const string IntervalOverlap = "project.interval-overlap";
     public const string DepthOutsideCore = "project.depth-outside-core";
     public const string MissingFile = "project.missing-file";
     public const string PathOutsideProject = "project.path-outside-project";
