@@ -460,6 +460,51 @@ public static class AgeModeller
         bool InReach(int c) => backbone >= 0 && (prepared[c]!.Varves is not null
             || (draws.Top[i * nControls + c] >= reachTop && draws.Bottom[i * nControls + c] <= reachBottom));
 
+        // The backbone's path, drawn given the calendar ages and other varve counts in its reach below its anchor.
+        var conditioned = new bool[nControls];
+        double logWeight = 0;
+        if (backbone >= 0)
+        {
+            var pb = prepared[backbone]!;
+            var bDepths = b.Depth.AsSpan(b.Offset[backbone], pb.PointCount).ToArray();
+            var observations = new List<PreparedControl.PathObservation>();
+            foreach (int c in active)
+            {
+                if (c == backbone || !InReach(c)) continue;
+                var pc = prepared[c]!;
+                if (pc.Spec is not CalendarAgeControl && pc.Varves is null) continue;
+                int last = pc.PointCount - 1;
+                double z = pc.Varves is null ? b.Depth[b.Offset[c]] : b.Depth[b.Offset[c] + last];
+                int k = Array.BinarySearch(bDepths, z);
+                if (k < 0) k = ~k;
+                if (k >= bDepths.Length) k = bDepths.Length - 1;
+                if (k > 0 && Math.Abs(bDepths[k - 1] - z) <= Math.Abs(bDepths[k] - z)) k--;
+                if (pb.Varves!.Counts[k] < 0) continue;
+                int k1 = Math.Min(k + 1, bDepths.Length - 1), k0 = k1 - 1;
+                double yearsPerUnit = k0 >= 0 && bDepths[k1] > bDepths[k0] ? (pb.Varves.Counts[k1] - pb.Varves.Counts[k0]) / (bDepths[k1] - bDepths[k0]) : 0;
+                double place = yearsPerUnit * pc.DepthSigma;
+                double observed, sigma;
+                if (pc.Varves is { } v)
+                {
+                    var (anchorAge, anchorSigma) = pc.Anchor;
+                    observed = anchorAge + v.Counts[last];
+                    sigma = Math.Sqrt(anchorSigma * anchorSigma + v.Variances[last] + Math.Pow(pc.CountError * v.Counts[last], 2) + place * place);
+                }
+                else
+                {
+                    var (mean, sd) = pc.Moments;
+                    observed = mean;
+                    sigma = Math.Sqrt(sd * sd + place * place);
+                }
+                observations.Add(new PreparedControl.PathObservation(k, observed, Math.Max(sigma, 0.5), pc.OutlierPrior, c));
+                conditioned[c] = true;
+            }
+            observations.Sort((x, y) => x.Point.CompareTo(y.Point));
+            var flags = new bool[observations.Count];
+            logWeight += pb.DrawConditioned(b.Rng[backbone], b.FirstAge.AsSpan(b.Offset[backbone], pb.PointCount), observations, flags);
+            for (int o = 0; o < observations.Count; o++) draws.Outlier[i * nControls + observations[o].Control] = flags[o] ? 1 : 0;
+        }
+
         // Knots: the backbone's points, then the point controls that are not weighed.
         var knotDepth = new List<double>();
         var knotAge = new List<double>();
@@ -529,13 +574,12 @@ public static class AgeModeller
         // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
         if (walk is not null) curve = walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
 
-        double logWeight = 0;
         foreach (int c in active)
         {
             var pc = prepared[c]!;
             double first = b.Depth[b.Offset[c]];
             draws.ModelledAge[i * nControls + c] = curve.AgeAt(first);
-            if (c == backbone || !InReach(c)) continue;
+            if (c == backbone || !InReach(c) || conditioned[c]) continue;
             var (lIn, lOut) = pc.Varves is not null ? VarveLikelihood(pc, b.Depth.AsSpan(b.Offset[c], pc.PointCount), curve) : PointLikelihood(pc, first, curve);
             double p = pc.OutlierPrior;
             // log((1 - p) L_in + p L_out) and the outlier's posterior p L_out / that, computed stably in logs.

@@ -166,6 +166,85 @@ internal sealed class PreparedControl
         ages.Fill(age);
     }
 
+    /// <summary>A calendar-age observation of a varve count's path at one of its points, from another control.</summary>
+    /// <param name="Point">Index of the count's point nearest the observing control.</param>
+    /// <param name="AgeBP">The control's age at that depth.</param>
+    /// <param name="Sigma">Its 1 sigma with the depth placement.</param>
+    /// <param name="Prior">The control's prior outlier probability.</param>
+    public readonly record struct PathObservation(int Point, double AgeBP, double Sigma, double Prior, int Control);
+
+    /// <summary>
+    /// Draws a varve count's ages like <see cref="Draw"/>, with its counting-error path below the anchor drawn
+    /// given calendar observations (forward filtering, backward sampling of the random walk: Carter and Kohn 1994,
+    /// Biometrika 81:541-553; Fruehwirth-Schnatter 1994, J. Time Ser. Anal. 15:183-202; from memory). At each
+    /// observation the control's outlier indicator is drawn from its probability given the path so far (an
+    /// outlier's sigma widened by <see cref="OutlierWidthYears"/>), and the member's log weight gains the log of the
+    /// predictive density, (1 - p) N(y; m, P + r^2) + p N(y; m, P + r^2 + W^2): every member is kept, weighted
+    /// by how well the count and the controls agree. <paramref name="outliers"/> gets each observation's indicator.
+    /// Observations must come sorted by point.
+    /// </summary>
+    public double DrawConditioned(Random rng, Span<double> ages, IReadOnlyList<PathObservation> observations, Span<bool> outliers)
+    {
+        var counts = _varves!.Counts;
+        var variances = _varves.Variances;
+        double factor = _countError > 0 ? Math.Max(0, 1 + _countError * Normal.InvCDF(0, 1, OpenUnit(rng))) : 1;
+        int start = Array.FindIndex(counts, c => c >= 0);
+        if (start < 0) start = counts.Length;
+        int n = counts.Length - start;
+        // State: anchor offset plus counting error at each point below the anchor, prior x_0 ~ N(0, anchor sigma^2 + V_0).
+        var mean = new double[n];
+        var variance = new double[n];
+        double m = 0, pv = _sigma * _sigma, logWeight = 0, previousV = 0;
+        int o = 0;
+        for (int k = 0; k < n; k++)
+        {
+            pv += Math.Max(0, variances[start + k] - previousV);
+            previousV = variances[start + k];
+            for (; o < observations.Count && observations[o].Point == start + k; o++)
+            {
+                var ob = observations[o];
+                double y = ob.AgeBP - (_mean + counts[start + k] * factor);
+                double r2 = ob.Sigma * ob.Sigma, w2 = OutlierWidthYears * OutlierWidthYears;
+                double li = Math.Log(1 - ob.Prior) + LogNormal(y, m, Math.Sqrt(pv + r2));
+                double lo = ob.Prior > 0 ? Math.Log(ob.Prior) + LogNormal(y, m, Math.Sqrt(pv + r2 + w2)) : double.NegativeInfinity;
+                double top = Math.Max(li, lo), log = top + Math.Log(Math.Exp(li - top) + Math.Exp(lo - top));
+                logWeight += log;
+                bool outlier = rng.NextDouble() < Math.Exp(lo - log);
+                outliers[o] = outlier;
+                double s2 = outlier ? r2 + w2 : r2, gain = pv / (pv + s2);
+                m += gain * (y - m);
+                pv *= 1 - gain;
+            }
+            mean[k] = m;
+            variance[k] = pv;
+        }
+        // Backward sampling.
+        double next = 0;
+        for (int k = n - 1; k >= 0; k--)
+        {
+            double mk = mean[k], vk = variance[k];
+            if (k < n - 1)
+            {
+                double q = Math.Max(0, variances[start + k + 1] - variances[start + k]);
+                double g = vk + q > 0 ? vk / (vk + q) : 0;
+                mk += g * (next - mk);
+                vk *= 1 - g;
+            }
+            next = mk + Math.Sqrt(Math.Max(0, vk)) * Normal.InvCDF(0, 1, OpenUnit(rng));
+            ages[start + k] = _mean + counts[start + k] * factor + next;
+        }
+        // Above the anchor: the unconditioned walk, from the anchor's drawn offset.
+        double error = n > 0 ? ages[start] - (_mean + counts[start] * factor) : _sigma > 0 ? _sigma * Normal.InvCDF(0, 1, OpenUnit(rng)) : 0, prev = 0;
+        for (int p = start - 1; p >= 0; p--)
+        {
+            error += Normal.InvCDF(0, 1, OpenUnit(rng)) * Math.Sqrt(Math.Max(0, variances[p] - prev));
+            prev = variances[p];
+            ages[p] = _mean + counts[p] * factor + error;
+        }
+        for (int p = 1; p < ages.Length; p++) if (ages[p] < ages[p - 1]) ages[p] = ages[p - 1];
+        return logWeight;
+    }
+
     /// <summary>Uniform on (0, 1): the normal inverse CDF is infinite at 0.</summary>
     private static double OpenUnit(Random rng)
     {
