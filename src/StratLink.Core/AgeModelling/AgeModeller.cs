@@ -92,6 +92,8 @@ public static class AgeModeller
 
         var scales = Scales(project, alignment);
         int backbone = Backbone(prepared, active);
+        var placements = new (double Depth, double Spread)[specs.Count];
+        foreach (int c in active) placements[c] = Placement(prepared[c]!, alignment, scales);
         RateWalk? walk = null;
         if (p.AgeModel.RateVariability > 0)
         {
@@ -106,7 +108,7 @@ public static class AgeModeller
         var options = new ParallelOptions { CancellationToken = ct };
         Parallel.For(0, iterations, options, () => new IterationBuffers(prepared, active, measured), (i, _, buffers) =>
         {
-            (proposals[i], logWeights[i]) = Iterate(i, seed, prepared, active, measured, backbone, alignment, scales, interpolation, walk, buffers, draws, ref forced);
+            (proposals[i], logWeights[i]) = Iterate(i, seed, prepared, active, measured, backbone, placements, alignment, scales, interpolation, walk, buffers, draws, ref forced);
             int d = Interlocked.Increment(ref done);
             if (progress is not null && (d % Math.Max(1, iterations / 100) == 0 || d == iterations))
                 progress.Report(new WorkProgress("age model: iterations", d / (double)iterations));
@@ -224,6 +226,29 @@ public static class AgeModeller
             composite = new EventFreeScale(tops, bottoms);
         }
         return new EventScales(cores, composite);
+    }
+
+    /// <summary>
+    /// Where a control observing the backbone sits on the event-free composite scale: through the median mapping
+    /// (the reference core's point for a marker it holds, else the mean over the marker's cores; a varve count's
+    /// deepest point), and the spread (sd) of the mapping members there. The backbone path is drawn given the control
+    /// at that depth with the spread in its sigma, so the age controls do not pick alignment members: with a few
+    /// hundred distinct members and annual precision they would leave a handful.
+    /// </summary>
+    private static (double Depth, double Spread) Placement(PreparedControl pc, AlignmentResult alignment, EventScales scales)
+    {
+        var points = pc.Varves is not null ? [pc.PointCount - 1]
+            : pc.IsMarker && Array.IndexOf(pc.PointCores, alignment.ReferenceCore) is int r and >= 0 ? [r]
+            : Enumerable.Range(0, pc.PointCount).ToArray();
+        double depth = 0, spread = 0;
+        foreach (int q in points)
+        {
+            var ensemble = alignment.Mappings[pc.PointCores[q]];
+            depth += scales.ToModelDepth(pc.PointCores[q], ensemble.Median, pc.PointDepths[q]);
+            var zs = ensemble.Members.Select(m => scales.ToModelDepth(pc.PointCores[q], m, pc.PointDepths[q])).ToArray();
+            spread += zs.Length > 1 ? zs.StandardDeviation() : 0;
+        }
+        return (depth / points.Length, spread / points.Length);
     }
 
     /// <summary>The active varve count with the most varves carries the chronology (the first such in file order); -1 when none.</summary>
@@ -420,7 +445,7 @@ public static class AgeModeller
     /// outlier mixture; its posterior outlier probability in this member is recorded. Returns the log weight.
     /// </summary>
     private static (AgeDepthCurve Curve, double LogWeight) Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, int backbone,
-        AlignmentResult alignment, EventScales scales, AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
+        (double Depth, double Spread)[] placements, AlignmentResult alignment, EventScales scales, AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
     {
         int nControls = prepared.Length;
         foreach (int c in measured)
@@ -474,7 +499,7 @@ public static class AgeModeller
                 var pc = prepared[c]!;
                 if (pc.Spec is not CalendarAgeControl && pc.Varves is null) continue;
                 int last = pc.PointCount - 1;
-                double z = pc.Varves is null ? b.Depth[b.Offset[c]] : b.Depth[b.Offset[c] + last];
+                var (z, spread) = placements[c];
                 int k = Array.BinarySearch(bDepths, z);
                 if (k < 0) k = ~k;
                 if (k >= bDepths.Length) k = bDepths.Length - 1;
@@ -482,7 +507,7 @@ public static class AgeModeller
                 if (pb.Varves!.Counts[k] < 0) continue;
                 int k1 = Math.Min(k + 1, bDepths.Length - 1), k0 = k1 - 1;
                 double yearsPerUnit = k0 >= 0 && bDepths[k1] > bDepths[k0] ? (pb.Varves.Counts[k1] - pb.Varves.Counts[k0]) / (bDepths[k1] - bDepths[k0]) : 0;
-                double place = yearsPerUnit * pc.DepthSigma;
+                double place = yearsPerUnit * Math.Sqrt(pc.DepthSigma * pc.DepthSigma + spread * spread);
                 double observed, sigma;
                 if (pc.Varves is { } v)
                 {
