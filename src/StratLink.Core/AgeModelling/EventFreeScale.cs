@@ -69,6 +69,13 @@ public sealed class EventFreeScale
         return k > 0 && depth < _bottoms[k - 1];
     }
 
+    /// <summary>True when <paramref name="depth"/> lies inside an event layer or on its top or base (a sample there holds event material).</summary>
+    public bool Covers(double depth)
+    {
+        int k = Above(depth);
+        return k > 0 && depth <= _bottoms[k - 1];
+    }
+
     /// <summary>Number of events whose top lies at or above <paramref name="depth"/>.</summary>
     private int Above(double depth)
     {
