@@ -14,7 +14,7 @@ namespace StratLink.Bench;
 /// <summary>
 /// Alignment benchmarks (not tests): symmetric1 DTW with full path against mlpy.dtw_std on the same
 /// seeded random walks, and a two-core alignment with ties and a 200-path ensemble.
-/// Usage: StratLink.Bench [pair [N ...]] [cores]
+/// Usage: StratLink.Bench [pair [N ...]] [cores] [ages] (ages: see <see cref="AgeModelBench"/>)
 /// </summary>
 public static class Program
 {
@@ -30,6 +30,7 @@ public static class Program
             Pair(sizes.Length > 0 ? sizes : [2000, 5000, 10000]);
         }
         if (what.Contains("cores")) Cores();
+        if (what.Contains("ages")) AgeModelBench.Run();
         return 0;
     }
 
