@@ -165,7 +165,7 @@ public sealed class AgesView : DashView
     }
 
     /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
-    public static string ListHeader() => $"{"use",-3} {"control",-11} {"kind",-11} {"where",-14} {"given",-17} {"prior 95%",-15} {"post 95%",-11} {"outl",4} flags";
+    public static string ListHeader() => $"{"use",-3} {"control",-10} {"kind",-8} {"where",-12} {"given",-14} {"prior 95%",-11} {"post 95%",-11} {"outl",4} flags";
 
     public string ListLine(AgeControlSpec a, ControlOutcome? outcome)
     {
@@ -179,9 +179,9 @@ public sealed class AgesView : DashView
         };
         string given = a switch
         {
-            CalendarAgeControl c => $"{FormatNumber(c.Age.YearsBP)}±{FormatNumber(c.Error)} cal BP",
+            CalendarAgeControl c => $"{FormatNumber(c.Age.YearsBP)}±{FormatNumber(c.Error)} BP",
             RadiocarbonAgeControl r => $"{FormatNumber(r.C14Age.Years)}±{FormatNumber(r.C14Error)} 14C",
-            VarveCountControl v => $"count from {FormatNumber(v.AnchorAge.YearsBP)}",
+            VarveCountControl v => $"from {FormatNumber(v.AnchorAge.YearsBP)} BP",
             _ => "",
         };
         string range = outcome is null
@@ -190,7 +190,8 @@ public sealed class AgesView : DashView
         string posterior = outcome?.Posterior95 ?? "-";
         // The varve count that carries the chronology has no outlier share: "-".
         string share = outcome is null || double.IsNaN(outcome.OutlierShare) ? "-" : $"{Math.Round(100 * outcome.OutlierShare):0}%";
-        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 11),-11} {Cut(a.KindName, 11),-11} {Cut(where, 14),-14} {Cut(given, 17),-17} {Cut(range, 15),-15} "
+        // Sized so that the outlier share still shows at 80 columns; the flags follow on wider screens.
+        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 10),-10} {Cut(a.KindName, 8),-8} {Cut(where, 12),-12} {Cut(given, 14),-14} {Cut(range, 11),-11} "
             + $"{Cut(posterior, 11),-11} {share,4} {outcome?.Flags}";
     }
 
