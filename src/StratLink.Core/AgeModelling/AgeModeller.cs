@@ -439,8 +439,8 @@ public static class AgeModeller
     /// <summary>
     /// One member of the ensemble. Its curve runs through knots: the backbone varve count's points (anchor and
     /// random-walk counting-error path drawn) when there is one, and the point controls outside its reach (or all
-    /// point controls without a backbone), each drawn from its distribution and, with its prior outlier
-    /// probability, left out as an outlier (redrawn with the ages until the knots are in order). Every other
+    /// point controls without a backbone), each drawn from its distribution; when that draw is out of order, the
+    /// redraws leave each control out as an outlier with its prior probability until the knots are in order. Every other
     /// control (in the backbone's reach, and other varve counts) weighs the member by its likelihood under the
     /// outlier mixture; its posterior outlier probability in this member is recorded. Returns the log weight.
     /// </summary>
@@ -559,7 +559,8 @@ public static class AgeModeller
                 var pc = prepared[free[f]]!;
                 var ages = (attempt == 0 ? b.FirstAge : b.Age).AsSpan(b.Offset[free[f]], pc.PointCount);
                 if (attempt > 0) pc.Draw(b.Rng[free[f]], ages);
-                outlier[f] = pc.OutlierPrior > 0 && b.Rng[free[f]].NextDouble() < pc.OutlierPrior;
+                // A first draw in order keeps every knot; the redraws of a set out of order leave outliers out.
+                outlier[f] = attempt > 0 && pc.OutlierPrior > 0 && b.Rng[free[f]].NextDouble() < pc.OutlierPrior;
                 if (outlier[f]) continue;
                 for (int q = 0; q < pc.PointCount; q++)
                 {
