@@ -14,7 +14,7 @@ namespace StratLink.Bench;
 /// <summary>
 /// Alignment benchmarks (not tests): symmetric1 DTW with full path against mlpy.dtw_std on the same
 /// seeded random walks, and a two-core alignment with ties and a 200-path ensemble.
-/// Usage: StratLink.Bench [pair [N ...]] [cores] [kernel N SEED]
+/// Usage: StratLink.Bench [pair [N ...]] [cores] [kernel N SEED] [ages] (ages: see <see cref="AgeModelBench"/>)
 /// </summary>
 public static class Program
 {
@@ -35,6 +35,7 @@ public static class Program
             var rest = what.SkipWhile(a => a != "kernel").Skip(1).Select(int.Parse).ToArray();
             Kernel(rest.Length > 0 ? rest[0] : 10000, rest.Length > 1 ? rest[1] : 1);
         }
+        if (what.Contains("ages")) AgeModelBench.Run();
         return 0;
     }
 

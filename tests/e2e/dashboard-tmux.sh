@@ -116,7 +116,10 @@ run_size() {
   wait_for "Age model: age" "2 did not show the ages"
   wait_for "cal BP" "the ages screen has no age axis"
   wait_for "ash-1-age .* -?[0-9]+\\.\\.-?[0-9]+" "the ages screen lists no 95 % range for ash-1-age"
-  $T capture-pane -p -t dash | grep -q "▒" || fail "the ages screen draws no band"
+  # The demo's varve-dated band (about 20 yr over 3500 yr) can be narrower than the curve's own column at 80x24;
+  # then the list must give each control's posterior 95 % range beside its prior.
+  $T capture-pane -p -t dash | grep -q "▒" || $T capture-pane -p -t dash | grep -Eq "ash-1-age .* -?[0-9]+\.\.-?[0-9]+ +-?[0-9]+\.\.-?[0-9]+" \
+    || fail "the ages screen draws no band and lists no posterior range"
   echo "   ages: $($T capture-pane -p -t dash | grep -Eo 'ash-1-age .*' | tr -s ' ' | head -c 70)"
 
   # Export: the tables the next checks compare the screens with.

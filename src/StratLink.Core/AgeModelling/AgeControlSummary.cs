@@ -52,6 +52,15 @@ public sealed record AgeControlSummary
     /// <summary>Out of order in at least half of the iterations and |<see cref="LeaveOneOutZ"/>| of 2 or more: check it, or set <c>exclude: true</c>.</summary>
     public bool Flagged { get; init; }
 
+    /// <summary>Prior probability of being an outlier (from the project file).</summary>
+    public double OutlierPrior { get; init; } = double.NaN;
+
+    /// <summary>
+    /// Posterior outlier share (0..1): the ensemble's weighted mean of the control's outlier probability. NaN for the
+    /// varve count that carries the chronology and for controls not used.
+    /// </summary>
+    public double OutlierShare { get; init; } = double.NaN;
+
     /// <summary>Left out by the project file (<c>exclude: true</c>); still summarised.</summary>
     public bool Excluded { get; init; }
 

@@ -14,4 +14,6 @@ public static class AgeModelCodes
     public const string Excluded = "age-model.excluded";
     public const string OrderForced = "age-model.order-forced";
     public const string Extrapolated = "age-model.extrapolated";
+    public const string Outlier = "age-model.outlier";
+    public const string FewEffective = "age-model.effective-members";
 }

@@ -53,12 +53,15 @@ public sealed class AgeModelResult : ICompositeAgeScale
 
     public int MemberCount => Members.Count;
 
-    public double MemberAgeAt(int member, CompositeDepth depth) => Members[member].AgeAt(depth.In(Unit));
+    /// <summary>The composite scale's event layers; member curves run on event-free composite depth.</summary>
+    public EventFreeScale CompositeEvents { get; init; } = EventFreeScale.None;
+
+    public double MemberAgeAt(int member, CompositeDepth depth) => Members[member].AgeAt(CompositeEvents.ToEventFree(depth.In(Unit)));
 
     public (double MedianBP, double LoBP, double HiBP) AgeAt(CompositeDepth depth)
     {
         if (Members.Count == 0) return (double.NaN, double.NaN, double.NaN);
-        double z = depth.In(Unit);
+        double z = CompositeEvents.ToEventFree(depth.In(Unit));
         var ages = new double[Members.Count];
         for (int i = 0; i < ages.Length; i++) ages[i] = Members[i].AgeAt(z);
         Array.Sort(ages);

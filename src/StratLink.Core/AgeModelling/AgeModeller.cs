@@ -89,38 +89,56 @@ public static class AgeModeller
                 ? Finding.Note(AgeModelCodes.NoControls, "the project has no age controls: the alignment and the composite are built on depth alone, without ages.")
                 : Finding.Error(AgeModelCodes.TooFewControls,
                     $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
-            var empty = Summaries(specs, prepared, problemOf, [], [], iterations, null);
+            var empty = Summaries(specs, prepared, problemOf, [], [], iterations, null, [], []);
             return new AgeModelResult(seed, interpolation, unit, [], empty, new Dictionary<string, AgeSeries>(), null, 0, findings);
         }
 
+        var scales = Scales(project, alignment);
+        int backbone = Backbone(prepared, active);
+        var placements = new (double Depth, double Spread)[specs.Count];
+        foreach (int c in active) placements[c] = Placement(prepared[c]!, alignment, scales);
         RateWalk? walk = null;
         if (p.AgeModel.RateVariability > 0)
         {
-            var (top, bottom) = QueryExtent(project, alignment, iterations, prepared, active);
+            var (top, bottom) = QueryExtent(project, alignment, iterations, prepared, active, scales);
             walk = new RateWalk(p.AgeModel.RateVariability, step, top - step, bottom + step);
         }
 
         var draws = new IterationDraws(specs.Count, iterations);
-        var curves = new AgeDepthCurve[iterations];
+        var proposals = new AgeDepthCurve[iterations];
+        var logWeights = new double[iterations];
         int done = 0, forced = 0;
         var options = new ParallelOptions { CancellationToken = ct };
         Parallel.For(0, iterations, options, () => new IterationBuffers(prepared, active, measured), (i, _, buffers) =>
         {
-            curves[i] = Iterate(i, seed, prepared, active, measured, alignment, interpolation, walk, buffers, draws, ref forced);
+            (proposals[i], logWeights[i]) = Iterate(i, seed, prepared, active, measured, backbone, placements, alignment, scales, interpolation, walk, buffers, draws, ref forced);
             int d = Interlocked.Increment(ref done);
             if (progress is not null && (d % Math.Max(1, iterations / 100) == 0 || d == iterations))
                 progress.Report(new WorkProgress("age model: iterations", d / (double)iterations));
             return buffers;
         }, _ => { });
 
+        var weights = Normalised(logWeights);
+        var source = Resample(weights, SeedStreams.Derive(seed, iterations, specs.Count + 1));
+        var curves = source.Select(k => proposals[k]).ToArray();
+        double ess = EffectiveSize(weights);
+        if (backbone >= 0)
+            findings.Add((ess < Math.Min(100, iterations / 4.0) ? Finding.Warning(AgeModelCodes.FewEffective,
+                    $"the age controls leave an effective {ess:0} of {iterations} members to the varve count {specs[backbone].Id}: the ranges rest on few distinct members; raise age_model.iterations.")
+                : Finding.Note(AgeModelCodes.FewEffective,
+                    $"{specs[backbone].Id} carries the chronology; the other controls weigh its members (effective size {ess:0} of {iterations}).")) with { Item = specs[backbone].Id });
+
         if (forced > 0)
             findings.Add(Finding.Warning(AgeModelCodes.OrderForced,
                 $"in {forced} of {iterations} iterations no draw of the age controls was in stratigraphic order after {MaxOrderAttempts} tries; those ages were pooled into order. The controls contradict each other: see the flagged ones."));
 
-        var summaries = Summaries(specs, prepared, problemOf, active, measured, iterations, draws);
+        var summaries = Summaries(specs, prepared, problemOf, active, measured, iterations, draws, weights, source);
         foreach (var s in summaries.Where(s => s.Flagged))
             findings.Add(Finding.Warning(AgeModelCodes.Contradicted,
                 $"age control {s.Id} is out of stratigraphic order with another control in {Pct(s.ContradictionShare)} % of iterations (leave-one-out z {s.LeaveOneOutZ.ToString("0.0", CultureInfo.InvariantCulture)}){(s.Excluded ? " (excluded)" : "; check it, or set exclude: true")}.") with { Item = s.Id, Core = s.Cores.FirstOrDefault() });
+        foreach (var s in summaries.Where(s => s.Used && s.OutlierShare >= OutlierWarnShare))
+            findings.Add(Finding.Warning(AgeModelCodes.Outlier,
+                $"age control {s.Id} is an outlier in {Pct(s.OutlierShare)} % of the ensemble (prior {Pct(specs.First(a => a.Id == s.Id).OutlierPrior)} %): the other controls disagree with it, so it barely shapes the ages; check it.") with { Item = s.Id, Core = s.Cores.FirstOrDefault() });
 
         // Ages of every core's samples, then of the composite grid.
         var cores = new Dictionary<string, AgeSeries>();
@@ -137,7 +155,7 @@ public static class AgeModeller
                 continue;
             }
             var depths = DepthsIn(table, unit);
-            var series = Summarise(core.Id, false, unit, depths, ensemble, curves, options);
+            var series = Summarise(core.Id, false, unit, depths, ensemble, curves, source, scales.Of(core.Id), scales.Composite, options);
             cores[core.Id] = series;
             NoteExtrapolation(series, findings);
             gridTop = Math.Min(gridTop, ensemble.Median.ToCompositeValue(depths[0]));
@@ -151,9 +169,9 @@ public static class AgeModeller
         }
         int first = (int)Math.Floor(gridTop / step), last = (int)Math.Ceiling(gridBottom / step);
         var grid = Enumerable.Range(first, last - first + 1).Select(k => k * step).ToArray();
-        var composite = Summarise("composite", true, unit, grid, null, curves, options);
+        var composite = Summarise("composite", true, unit, grid, null, curves, source, EventFreeScale.None, scales.Composite, options);
 
-        return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings);
+        return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings) { CompositeEvents = scales.Composite };
     }
 
     private static double[] DepthsIn(Tables.CoreTable table, DepthUnit unit) =>
@@ -164,13 +182,13 @@ public static class AgeModeller
     /// and every member of its mapping, and the controls' points through the members the iterations use.
     /// </summary>
     private static (double Top, double Bottom) QueryExtent(LoadedProject project, AlignmentResult alignment, int iterations,
-        PreparedControl?[] prepared, int[] active)
+        PreparedControl?[] prepared, int[] active, EventScales scales)
     {
         var unit = project.Project.DepthUnit;
         double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
         void Reach(DepthMapping mapping, double depth)
         {
-            double z = mapping.ToCompositeValue(depth);
+            double z = scales.Composite.ToEventFree(mapping.ToCompositeValue(depth));
             top = Math.Min(top, z);
             bottom = Math.Max(bottom, z);
         }
@@ -193,6 +211,99 @@ public static class AgeModeller
         return (top, bottom);
     }
 
+    /// <summary>
+    /// Every core's event layers, and the composite scale's: the reference core's, through its median mapping. (Another
+    /// core's event need not be an event in the reference; its samples take the age of its base through their mapping.)
+    /// </summary>
+    private static EventScales Scales(LoadedProject project, AlignmentResult alignment)
+    {
+        var unit = project.Project.DepthUnit;
+        var cores = project.Project.Cores.ToDictionary(c => c.Id, c => EventFreeScale.Of(c, unit));
+        var composite = EventFreeScale.None;
+        if (cores.TryGetValue(alignment.ReferenceCore, out var reference) && reference.Count > 0 && alignment.Mappings.TryGetValue(alignment.ReferenceCore, out var ensemble))
+        {
+            var tops = reference.Tops.Select(ensemble.Median.ToCompositeValue).ToArray();
+            var bottoms = reference.Bottoms.Select(ensemble.Median.ToCompositeValue).ToArray();
+            for (int k = 1; k < tops.Length; k++) tops[k] = Math.Max(tops[k], bottoms[k - 1]);
+            for (int k = 0; k < tops.Length; k++) bottoms[k] = Math.Max(bottoms[k], tops[k]);
+            composite = new EventFreeScale(tops, bottoms);
+        }
+        return new EventScales(cores, composite);
+    }
+
+    /// <summary>
+    /// Where a control observing the backbone sits on the event-free composite scale: through the median mapping
+    /// (the reference core's point for a marker it holds, else the mean over the marker's cores; a varve count's
+    /// deepest point), and the spread (sd) of the mapping members there. The backbone path is drawn given the control
+    /// at that depth with the spread in its sigma, so the age controls do not pick alignment members: with a few
+    /// hundred distinct members and annual precision they would leave a handful.
+    /// </summary>
+    private static (double Depth, double Spread) Placement(PreparedControl pc, AlignmentResult alignment, EventScales scales)
+    {
+        var points = pc.Varves is not null ? [pc.PointCount - 1]
+            : pc.IsMarker && Array.IndexOf(pc.PointCores, alignment.ReferenceCore) is int r and >= 0 ? [r]
+            : Enumerable.Range(0, pc.PointCount).ToArray();
+        double depth = 0, spread = 0;
+        foreach (int q in points)
+        {
+            var ensemble = alignment.Mappings[pc.PointCores[q]];
+            depth += scales.ToModelDepth(pc.PointCores[q], ensemble.Median, pc.PointDepths[q]);
+            var zs = ensemble.Members.Select(m => scales.ToModelDepth(pc.PointCores[q], m, pc.PointDepths[q])).ToArray();
+            spread += zs.Length > 1 ? zs.StandardDeviation() : 0;
+        }
+        return (depth / points.Length, spread / points.Length);
+    }
+
+    /// <summary>The active varve count with the most varves carries the chronology (the first such in file order); -1 when none.</summary>
+    private static int Backbone(PreparedControl?[] prepared, int[] active)
+    {
+        int best = -1;
+        foreach (int c in active)
+            if (prepared[c]!.Varves is { } v && (best < 0 || v.VarveCount > prepared[best]!.Varves!.VarveCount)) best = c;
+        return best;
+    }
+
+    /// <summary>Importance weights summing to 1 from log weights (all equal when every log weight is equal).</summary>
+    private static double[] Normalised(double[] logWeights)
+    {
+        double top = logWeights.Max();
+        var w = logWeights.Select(l => double.IsNegativeInfinity(top) ? 1 : Math.Exp(l - top)).ToArray();
+        double sum = w.Sum();
+        for (int i = 0; i < w.Length; i++) w[i] /= sum;
+        return w;
+    }
+
+    /// <summary>Kish's effective sample size, (sum w)^2 / sum w^2, of normalised weights.</summary>
+    private static double EffectiveSize(double[] weights) => 1 / weights.Sum(w => w * w);
+
+    /// <summary>
+    /// Systematic resampling (Kitagawa 1996, J. Comput. Graph. Stat. 5:1-25, from memory): as many members as
+    /// proposals, member i taking the proposal where the cumulative weight first reaches (u + i) / n for one
+    /// seeded u. Equal weights give every proposal once, in order.
+    /// </summary>
+    private static int[] Resample(double[] weights, int seed)
+    {
+        int n = weights.Length;
+        var source = new int[n];
+        if (weights.All(w => w == weights[0]))
+        {
+            for (int i = 0; i < n; i++) source[i] = i;
+            return source;
+        }
+        double u = new Random(seed).NextDouble(), cumulative = weights[0];
+        int k = 0;
+        for (int i = 0; i < n; i++)
+        {
+            double target = (u + i) / n;
+            while (cumulative < target && k < n - 1) cumulative += weights[++k];
+            source[i] = k;
+        }
+        return source;
+    }
+
+    /// <summary>A control is reported as an outlier when its posterior share reaches this (our choice: at least even odds).</summary>
+    public const double OutlierWarnShare = 0.5;
+
     private static PreparedControl? Prepare(LoadedProject project, AlignmentResult alignment,
         IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)> varveLayers, AgeControlSpec spec, FindingList problems, out string? problem)
     {
@@ -204,6 +315,8 @@ public static class AgeModeller
             return text;
         }
         bool Mapped(string core) => alignment.Mappings.ContainsKey(core);
+        // A point's depth on the composite scale is known to about half a composite step (our choice).
+        double placement = 0.5 * (project.Project.Composite.Step > 0 ? project.Project.Composite.Step : 1);
 
         switch (spec)
         {
@@ -213,11 +326,11 @@ public static class AgeModeller
                 if (marker is null) { problem = Fail(AgeModelCodes.UnknownMarker, $"marker {c.Marker} is not defined."); return null; }
                 var at = marker.Depths.Where(d => Mapped(d.CoreId)).ToArray();
                 if (at.Length == 0) { problem = Fail(AgeModelCodes.NoMapping, $"no core holding marker {c.Marker} has a depth mapping."); return null; }
-                return PreparedControl.Calendar(spec, at.Select(d => d.CoreId).ToArray(), at.Select(d => d.Depth.In(unit)).ToArray(), c.Age.YearsBP, c.Error);
+                return PreparedControl.Calendar(spec, at.Select(d => d.CoreId).ToArray(), at.Select(d => d.Depth.In(unit)).ToArray(), c.Age.YearsBP, c.Error).Placed(marker.Uncertainty);
             }
             case CalendarAgeControl c:
                 if (!Mapped(c.Core!)) { problem = Fail(AgeModelCodes.NoMapping, $"core {c.Core} has no depth mapping.", c.Core); return null; }
-                return PreparedControl.Calendar(spec, [c.Core!], [c.Depth!.Value.In(unit)], c.Age.YearsBP, c.Error);
+                return PreparedControl.Calendar(spec, [c.Core!], [c.Depth!.Value.In(unit)], c.Age.YearsBP, c.Error).Placed(placement);
             case RadiocarbonAgeControl r:
             {
                 if (!Mapped(r.Core)) { problem = Fail(AgeModelCodes.NoMapping, $"core {r.Core} has no depth mapping.", r.Core); return null; }
@@ -237,7 +350,7 @@ public static class AgeModeller
                     return null;
                 }
                 if (result.Message is not null) Fail(AgeModelCodes.Calibration, result.Message, r.Core, Severity.Warning);
-                return PreparedControl.Radiocarbon(r, r.Depth.In(unit), result);
+                return PreparedControl.Radiocarbon(r, r.Depth.In(unit), result).Placed(placement);
             }
             case VarveCountControl v:
             {
@@ -248,9 +361,10 @@ public static class AgeModeller
                     return null;
                 }
                 int before = problems.Count;
-                var sequence = VarveSequence.Build(v.Id, layers.Tops, layers.Bottoms, v.AnchorDepth.In(unit), problems);
+                double RateAt(double depth) => v.Uncertain.FirstOrDefault(u => u.Interval.ContainsValue(depth)) is { } u ? u.MiscountRate : v.MiscountRate;
+                var sequence = VarveSequence.Build(v.Id, layers.Tops, layers.Bottoms, v.AnchorDepth.In(unit), RateAt, problems);
                 if (sequence is null) { problem = problems.Count > before ? problems[^1].Message : "bad varve table"; return null; }
-                return PreparedControl.Varve(v, sequence);
+                return PreparedControl.Varve(v, sequence).Placed(placement);
             }
             default:
                 problem = Fail(AgeModelCodes.TooFewControls, $"unsupported kind {spec.KindName}.");
@@ -310,10 +424,31 @@ public static class AgeModeller
         public double[] Discrepancy { get; } = new double[controls * iterations];
         public double[] Top { get; } = new double[controls * iterations];
         public double[] Bottom { get; } = new double[controls * iterations];
+
+        /// <summary>Posterior outlier probability of each control in each member (NaN where not assessed).</summary>
+        public double[] Outlier { get; } = Enumerable.Repeat(double.NaN, controls * iterations).ToArray();
     }
 
-    private static AgeDepthCurve Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, AlignmentResult alignment,
-        AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
+    /// <summary>The depth scales one iteration needs: every core's event layers and the composite scale's.</summary>
+    private sealed record EventScales(IReadOnlyDictionary<string, EventFreeScale> Cores, EventFreeScale Composite)
+    {
+        public EventFreeScale Of(string core) => Cores.TryGetValue(core, out var s) ? s : EventFreeScale.None;
+
+        /// <summary>Event-free composite depth of a core depth through one mapping: the core's event takes its base's age.</summary>
+        public double ToModelDepth(string core, DepthMapping mapping, double coreDepth) =>
+            Composite.ToEventFree(mapping.ToCompositeValue(Of(core).BaseOf(coreDepth)));
+    }
+
+    /// <summary>
+    /// One member of the ensemble. Its curve runs through knots: the backbone varve count's points (anchor and
+    /// random-walk counting-error path drawn) when there is one, and the point controls outside its reach (or all
+    /// point controls without a backbone), each drawn from its distribution; when that draw is out of order, the
+    /// redraws leave each control out as an outlier with its prior probability until the knots are in order. Every other
+    /// control (in the backbone's reach, and other varve counts) weighs the member by its likelihood under the
+    /// outlier mixture; its posterior outlier probability in this member is recorded. Returns the log weight.
+    /// </summary>
+    private static (AgeDepthCurve Curve, double LogWeight) Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, int backbone,
+        (double Depth, double Spread)[] placements, AlignmentResult alignment, EventScales scales, AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
     {
         int nControls = prepared.Length;
         foreach (int c in measured)
@@ -322,7 +457,7 @@ public static class AgeModeller
             b.Rng[c] = new Random(SeedStreams.Derive(seed, i, c));
             var depths = b.Depth.AsSpan(b.Offset[c], pc.PointCount);
             for (int q = 0; q < pc.PointCount; q++)
-                depths[q] = alignment.Mappings[pc.PointCores[q]].Member(i).ToCompositeValue(pc.PointDepths[q]);
+                depths[q] = scales.ToModelDepth(pc.PointCores[q], alignment.Mappings[pc.PointCores[q]].Member(i), pc.PointDepths[q]);
             if (pc.IsMarker && pc.PointCount > 1) PlaceMarker(pc, depths, alignment.ReferenceCore);
             double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
             foreach (double z in depths)
@@ -332,51 +467,224 @@ public static class AgeModeller
             }
             draws.Top[i * nControls + c] = top;
             draws.Bottom[i * nControls + c] = bottom;
-            // Excluded controls draw once, for their contradiction measure only.
             pc.Draw(b.Rng[c], b.FirstAge.AsSpan(b.Offset[c], pc.PointCount));
         }
 
         int n = b.ActiveIndex.Length;
-        var depth = new double[n];
-        var age = new double[n];
         for (int k = 0; k < n; k++)
         {
-            depth[k] = b.Depth[b.ActiveIndex[k]];
-            age[k] = b.FirstAge[b.ActiveIndex[k]];
             b.Order[k] = k;
-            b.OrderKeys[k] = depth[k];
+            b.OrderKeys[k] = b.Depth[b.ActiveIndex[k]];
         }
         Array.Sort(b.OrderKeys, b.Order);
         MeasureContradictions(i, prepared, active, measured, b, draws);
 
-        bool ordered = StratigraphicOrder.IsOrdered(b.Order, depth, age);
-        for (int attempt = 1; attempt < MaxOrderAttempts && !ordered; attempt++)
+        double reachTop = double.PositiveInfinity, reachBottom = double.NegativeInfinity;
+        if (backbone >= 0)
         {
+            reachTop = draws.Top[i * nControls + backbone];
+            reachBottom = draws.Bottom[i * nControls + backbone];
+        }
+        bool InReach(int c) => backbone >= 0 && (prepared[c]!.Varves is not null
+            || (draws.Top[i * nControls + c] >= reachTop && draws.Bottom[i * nControls + c] <= reachBottom));
+
+        // The backbone's path, drawn given the calendar ages and other varve counts in its reach below its anchor.
+        var conditioned = new bool[nControls];
+        double logWeight = 0;
+        if (backbone >= 0)
+        {
+            var pb = prepared[backbone]!;
+            var bDepths = b.Depth.AsSpan(b.Offset[backbone], pb.PointCount).ToArray();
+            var observations = new List<PreparedControl.PathObservation>();
             foreach (int c in active)
             {
+                if (c == backbone || !InReach(c)) continue;
                 var pc = prepared[c]!;
-                pc.Draw(b.Rng[c], b.Age.AsSpan(b.Offset[c], pc.PointCount));
+                if (pc.Spec is not CalendarAgeControl && pc.Varves is null) continue;
+                int last = pc.PointCount - 1;
+                var (z, spread) = placements[c];
+                int k = Array.BinarySearch(bDepths, z);
+                if (k < 0) k = ~k;
+                if (k >= bDepths.Length) k = bDepths.Length - 1;
+                if (k > 0 && Math.Abs(bDepths[k - 1] - z) <= Math.Abs(bDepths[k] - z)) k--;
+                if (pb.Varves!.Counts[k] < 0) continue;
+                int k1 = Math.Min(k + 1, bDepths.Length - 1), k0 = k1 - 1;
+                double yearsPerUnit = k0 >= 0 && bDepths[k1] > bDepths[k0] ? (pb.Varves.Counts[k1] - pb.Varves.Counts[k0]) / (bDepths[k1] - bDepths[k0]) : 0;
+                double place = yearsPerUnit * Math.Sqrt(pc.DepthSigma * pc.DepthSigma + spread * spread);
+                double observed, sigma;
+                if (pc.Varves is { } v)
+                {
+                    var (anchorAge, anchorSigma) = pc.Anchor;
+                    observed = anchorAge + v.Counts[last];
+                    sigma = Math.Sqrt(anchorSigma * anchorSigma + v.Variances[last] + Math.Pow(pc.CountError * v.Counts[last], 2) + place * place);
+                }
+                else
+                {
+                    var (mean, sd) = pc.Moments;
+                    observed = mean;
+                    sigma = Math.Sqrt(sd * sd + place * place);
+                }
+                observations.Add(new PreparedControl.PathObservation(k, observed, Math.Max(sigma, 0.5), pc.OutlierPrior, c));
+                conditioned[c] = true;
             }
-            for (int k = 0; k < n; k++) age[k] = b.Age[b.ActiveIndex[k]];
-            ordered = StratigraphicOrder.IsOrdered(b.Order, depth, age);
+            observations.Sort((x, y) => x.Point.CompareTo(y.Point));
+            var flags = new bool[observations.Count];
+            logWeight += pb.DrawConditioned(b.Rng[backbone], b.FirstAge.AsSpan(b.Offset[backbone], pb.PointCount), observations, flags);
+            for (int o = 0; o < observations.Count; o++) draws.Outlier[i * nControls + observations[o].Control] = flags[o] ? 1 : 0;
         }
+
+        // Knots: the backbone's points, then the point controls that are not weighed.
+        var knotDepth = new List<double>();
+        var knotAge = new List<double>();
+        var knotWeight = new List<double>();
+        if (backbone >= 0)
+        {
+            var pb = prepared[backbone]!;
+            for (int q = 0; q < pb.PointCount; q++)
+            {
+                knotDepth.Add(b.Depth[b.Offset[backbone] + q]);
+                knotAge.Add(b.FirstAge[b.Offset[backbone] + q]);
+                knotWeight.Add(pb.Weights[q]);
+            }
+        }
+        int fixedKnots = knotDepth.Count;
+        var free = active.Where(c => c != backbone && !InReach(c)).ToArray();
+        var outlier = new bool[free.Length];
+        int distinctFixed = knotDepth.Distinct().Count();
+        bool ordered = false;
+        for (int attempt = 0; attempt < MaxOrderAttempts && !ordered; attempt++)
+        {
+            knotDepth.RemoveRange(fixedKnots, knotDepth.Count - fixedKnots);
+            knotAge.RemoveRange(fixedKnots, knotAge.Count - fixedKnots);
+            knotWeight.RemoveRange(fixedKnots, knotWeight.Count - fixedKnots);
+            for (int f = 0; f < free.Length; f++)
+            {
+                var pc = prepared[free[f]]!;
+                var ages = (attempt == 0 ? b.FirstAge : b.Age).AsSpan(b.Offset[free[f]], pc.PointCount);
+                if (attempt > 0) pc.Draw(b.Rng[free[f]], ages);
+                // A first draw in order keeps every knot; the redraws of a set out of order leave outliers out.
+                outlier[f] = attempt > 0 && pc.OutlierPrior > 0 && b.Rng[free[f]].NextDouble() < pc.OutlierPrior;
+                if (outlier[f]) continue;
+                for (int q = 0; q < pc.PointCount; q++)
+                {
+                    knotDepth.Add(b.Depth[b.Offset[free[f]] + q]);
+                    knotAge.Add(ages[q]);
+                    knotWeight.Add(pc.Weights[q]);
+                }
+            }
+            // Outliers are never so many that fewer than two knot depths remain: then they all count.
+            if (distinctFixed < 2 && knotDepth.Distinct().Count() < 2)
+                for (int f = 0; f < free.Length; f++)
+                {
+                    if (!outlier[f]) continue;
+                    outlier[f] = false;
+                    var pc = prepared[free[f]]!;
+                    var ages = (attempt == 0 ? b.FirstAge : b.Age).AsSpan(b.Offset[free[f]], pc.PointCount);
+                    for (int q = 0; q < pc.PointCount; q++)
+                    {
+                        knotDepth.Add(b.Depth[b.Offset[free[f]] + q]);
+                        knotAge.Add(ages[q]);
+                        knotWeight.Add(pc.Weights[q]);
+                    }
+                }
+            ordered = StratigraphicOrder.IsOrdered(SortedOrder(knotDepth), [.. knotDepth], [.. knotAge]);
+        }
+        var order = SortedOrder(knotDepth);
+        var depth = knotDepth.ToArray();
+        var age = knotAge.ToArray();
         if (!ordered)
         {
-            StratigraphicOrder.Pool(b.Order, age, b.ActiveWeight);
+            StratigraphicOrder.Pool(order, age, [.. knotWeight]);
             Interlocked.Increment(ref forced);
         }
+        for (int f = 0; f < free.Length; f++) draws.Outlier[i * nControls + free[f]] = outlier[f] ? 1 : 0;
 
-        // Modelled age of each active control at its first point.
-        int pos = 0;
+        var curve = BuildCurve(order, depth, age, interpolation, i);
+        // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
+        if (walk is not null) curve = walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
+
         foreach (int c in active)
         {
-            draws.ModelledAge[i * nControls + c] = age[pos];
-            pos += prepared[c]!.PointCount;
+            var pc = prepared[c]!;
+            double first = b.Depth[b.Offset[c]];
+            draws.ModelledAge[i * nControls + c] = curve.AgeAt(first);
+            if (c == backbone || !InReach(c) || conditioned[c]) continue;
+            var (lIn, lOut) = pc.Varves is not null ? VarveLikelihood(pc, b.Depth.AsSpan(b.Offset[c], pc.PointCount), curve) : PointLikelihood(pc, first, curve);
+            double p = pc.OutlierPrior;
+            // log((1 - p) L_in + p L_out) and the outlier's posterior p L_out / that, computed stably in logs.
+            double a = Math.Log(1 - p) + lIn, o = p > 0 ? Math.Log(p) + lOut : double.NegativeInfinity;
+            double top = Math.Max(a, o);
+            double log = top + Math.Log(Math.Exp(a - top) + Math.Exp(o - top));
+            logWeight += log;
+            draws.Outlier[i * nControls + c] = Math.Exp(o - log);
         }
+        return (curve, logWeight);
+    }
 
-        var curve = BuildCurve(b.Order, depth, age, interpolation, i);
-        // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
-        return walk is null ? curve : walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
+    private static int[] SortedOrder(List<double> depths)
+    {
+        var order = Enumerable.Range(0, depths.Count).ToArray();
+        var keys = depths.ToArray();
+        Array.Sort(keys, order);
+        return order;
+    }
+
+    private static (double In, double Out) PointLikelihood(PreparedControl pc, double depth, AgeDepthCurve curve)
+    {
+        double modelled = curve.AgeAt(depth, out double yearsPerUnit);
+        return (pc.LogLikelihood(modelled, yearsPerUnit, false), pc.LogLikelihood(modelled, yearsPerUnit, true));
+    }
+
+    /// <summary>Checkpoints of a weighed varve count: its point nearest the anchor and this many more, spread evenly.</summary>
+    private const int VarveCheckpoints = 4;
+
+    /// <summary>
+    /// Likelihood of a second varve count given the member's curve: the modelled age at its point nearest the
+    /// anchor against the anchor age, and the modelled years between checkpoints against the varves counted
+    /// between them. Under the random-walk miscount model the increments are independent normals with the
+    /// miscount variance accumulated between the checkpoints (plus the systematic error and the depth placement
+    /// of both ends). As an outlier the count keeps its shape loosely: anchor widened by
+    /// <see cref="PreparedControl.OutlierWidthYears"/>, increments by half their counts.
+    /// </summary>
+    private static (double In, double Out) VarveLikelihood(PreparedControl pc, ReadOnlySpan<double> depths, AgeDepthCurve curve)
+    {
+        var seq = pc.Varves!;
+        var counts = seq.Counts;
+        int nearest = 0;
+        for (int q = 1; q < counts.Length; q++) if (Math.Abs(counts[q]) < Math.Abs(counts[nearest])) nearest = q;
+        var (anchorAge, anchorSigma) = pc.Anchor;
+        double z0 = depths[nearest];
+        double a0 = curve.AgeAt(z0, out double r0);
+        double place0 = r0 * pc.DepthSigma;
+        double sigma0 = Math.Sqrt(anchorSigma * anchorSigma + seq.Variances[nearest] + place0 * place0 + Math.Pow(pc.CountError * counts[nearest], 2));
+        double expected0 = anchorAge + counts[nearest];
+        double lIn = PreparedControl.LogNormal(a0, expected0, sigma0);
+        double lOut = PreparedControl.LogNormal(a0, expected0, Math.Sqrt(sigma0 * sigma0 + PreparedControl.OutlierWidthYears * PreparedControl.OutlierWidthYears));
+        foreach (int side in (ReadOnlySpan<int>)[-1, 1])
+        {
+            int end = side < 0 ? 0 : counts.Length - 1;
+            int span = Math.Abs(end - nearest);
+            if (span == 0) continue;
+            int previous = nearest;
+            double prevAge = a0, prevPlace = place0;
+            for (int k = 1; k <= VarveCheckpoints; k++)
+            {
+                int q = nearest + side * (int)Math.Round(span * k / (double)VarveCheckpoints);
+                if (q == previous) continue;
+                double aq = curve.AgeAt(depths[q], out double rq);
+                double place = rq * pc.DepthSigma;
+                double counted = counts[q] - counts[previous];
+                double modelled = aq - prevAge;
+                double sigma = Math.Sqrt(Math.Abs(seq.Variances[q] - seq.Variances[previous]) + Math.Pow(pc.CountError * counted, 2) + place * place + prevPlace * prevPlace);
+                sigma = Math.Max(sigma, 0.5);
+                lIn += PreparedControl.LogNormal(modelled, counted, sigma);
+                lOut += PreparedControl.LogNormal(modelled, counted, Math.Sqrt(sigma * sigma + 0.25 * counted * counted));
+                previous = q;
+                prevAge = aq;
+                prevPlace = place;
+            }
+        }
+        return (lIn, lOut);
     }
 
     /// <summary>
@@ -476,7 +784,7 @@ public static class AgeModeller
     }
 
     private static ImmutableArray<AgeControlSummary> Summaries(ImmutableList<AgeControlSpec> specs, PreparedControl?[] prepared, string?[] problemOf,
-        int[] active, int[] measured, int iterations, IterationDraws? draws)
+        int[] active, int[] measured, int iterations, IterationDraws? draws, double[] weights, int[] source)
     {
         int nControls = specs.Count;
         var list = ImmutableArray.CreateBuilder<AgeControlSummary>(nControls);
@@ -512,7 +820,16 @@ public static class AgeModeller
             }
             if (summary.Used && draws is not null)
             {
-                for (int i = 0; i < iterations; i++) column[i] = draws.ModelledAge[i * nControls + c];
+                double share = 0, mass = 0;
+                for (int i = 0; i < iterations; i++)
+                {
+                    double o = draws.Outlier[i * nControls + c];
+                    if (double.IsNaN(o)) continue;
+                    share += weights[i] * o;
+                    mass += weights[i];
+                }
+                summary = summary with { OutlierPrior = spec.OutlierPrior, OutlierShare = mass > 0 ? share / mass : double.NaN };
+                for (int i = 0; i < iterations; i++) column[i] = draws.ModelledAge[source[i] * nControls + c];
                 Array.Sort(column);
                 summary = summary with
                 {
@@ -564,9 +881,12 @@ public static class AgeModeller
     /// Median and 2.5/97.5 percentiles over the members of age and accumulation rate at each depth; for a core,
     /// depth d goes through mapping member i before curve i reads its age (and the rate through both slopes).
     /// </summary>
-    private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves, ParallelOptions options)
+    private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves,
+        int[] source, EventFreeScale coreEvents, EventFreeScale compositeEvents, ParallelOptions options)
     {
         int n = depths.Length, members = curves.Length;
+        // A sample inside one of the core's event layers takes the age of the layer's base.
+        var dated = depths.Select(coreEvents.BaseOf).ToArray();
 
         // Iterations cycle through the alignment members: map every sample through each distinct member once.
         var memberOf = new int[members];
@@ -576,7 +896,7 @@ public static class AgeModeller
             var index = new Dictionary<DepthMapping, int>(ReferenceEqualityComparer.Instance);
             for (int i = 0; i < members; i++)
             {
-                var mapping = ensemble.Member(i);
+                var mapping = ensemble.Member(source[i]);
                 if (!index.TryGetValue(mapping, out int k))
                 {
                     k = distinct.Count;
@@ -594,10 +914,11 @@ public static class AgeModeller
             ratio[k] = new double[n];
             for (int s = 0; s < n; s++)
             {
-                composite[k][s] = distinct[k].ToCompositeValue(depths[s]);
-                ratio[k][s] = distinct[k].RateRatioAt(depths[s]);
+                composite[k][s] = compositeEvents.ToEventFree(distinct[k].ToCompositeValue(dated[s]));
+                ratio[k][s] = distinct[k].RateRatioAt(dated[s]);
             }
         });
+        var gridModelDepths = ensemble is null ? depths.Select(compositeEvents.ToEventFree).ToArray() : null;
 
         var med = new double[n];
         var lo = new double[n];
@@ -619,7 +940,7 @@ public static class AgeModeller
                 int segment = -1;
                 for (int s = 0; s < len; s++)
                 {
-                    double z = zs is null ? depths[from + s] : zs[from + s];
+                    double z = zs is null ? gridModelDepths![from + s] : zs[from + s];
                     buf.Ages[s * members + i] = curve.AgeAtAscending(z, ref segment, out double yearsPerUnit);
                     buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
                     if (curve.IsExtrapolated(z)) outside[s]++;
@@ -637,7 +958,8 @@ public static class AgeModeller
             }
             return buf;
         }, _ => { });
-        return new AgeSeries(id, isComposite, unit, depths, med, lo, hi, rMed, rLo, rHi, extrapolated);
+        var eventFree = isComposite ? depths.Select(compositeEvents.ToEventFree).ToArray() : depths.Select(coreEvents.ToEventFree).ToArray();
+        return new AgeSeries(id, isComposite, unit, depths, med, lo, hi, rMed, rLo, rHi, extrapolated) { EventFreeDepths = eventFree };
     }
 
     /// <summary>Median, 2.5 and 97.5 percentiles (type 7, as <see cref="Statistics.PercentileSorted"/>) of one member column, by selection rather than a full sort.</summary>

@@ -46,7 +46,10 @@ public sealed class AgeSeries
     /// <summary>97.5 percentile (older end of the 95 % range), cal BP.</summary>
     public double[] AgeHiBP { get; }
 
-    /// <summary>Accumulation rate, depth units per year (median, 2.5 and 97.5 percentiles); infinite where ages were pooled to one value.</summary>
+    /// <summary>
+    /// Accumulation rate on event-free depth, depth units per year (median, 2.5 and 97.5 percentiles; inside an event
+    /// layer the rate at its base); infinite where ages were pooled to one value. Its inverse is the deposition time.
+    /// </summary>
     public double[] RateMedian { get; }
     public double[] RateLo { get; }
     public double[] RateHi { get; }
@@ -55,4 +58,13 @@ public sealed class AgeSeries
     public bool[] Extrapolated { get; }
 
     public int Count => Depths.Length;
+
+    /// <summary>Event-free depths (the core's event layers, or the composite scale's, cut out), in <see cref="Unit"/>; equal to <see cref="Depths"/> without events.</summary>
+    public double[] EventFreeDepths
+    {
+        get => _eventFree ?? Depths;
+        init => _eventFree = value.Length == Depths.Length ? value : throw new ArgumentException("Event-free depths differ in length.");
+    }
+
+    private readonly double[]? _eventFree;
 }

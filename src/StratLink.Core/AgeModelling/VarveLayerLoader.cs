@@ -1,5 +1,6 @@
 using StratLink.Checks;
 using StratLink.Model;
+using StratLink.Quantities;
 using StratLink.Tables;
 using StratLink.Workflows;
 
@@ -19,8 +20,33 @@ public static class VarveLayerLoader
         {
             ct.ThrowIfCancellationRequested();
             var table = IntervalTableReader.Read(project.Document.Resolve(control.Table), project.Project.DepthUnit, problems, ct);
-            if (table is not null) layers[control.Id] = (table.Tops, table.Bottoms);
+            if (table is null) continue;
+            if (OutsideCore(project, control, table.Tops, table.Bottoms, problems)) continue;
+            layers[control.Id] = (table.Tops, table.Bottoms);
         }
         return layers;
+    }
+
+    /// <summary>
+    /// A varve interval reaching beyond its core's samples by more than one sample spacing is an error at the control's
+    /// <c>table</c> key: a count cannot date sediment the core does not hold (most often a wrong core or depth unit).
+    /// </summary>
+    private static bool OutsideCore(LoadedProject project, VarveCountControl control, double[] tops, double[] bottoms, FindingList problems)
+    {
+        if (tops.Length == 0 || !project.Tables.TryGetValue(control.Core, out var core) || core.Count < 2) return false;
+        var unit = project.Project.DepthUnit;
+        double first = DepthUnits.Convert(core.Depths[0], core.Unit, unit), last = DepthUnits.Convert(core.Depths[^1], core.Unit, unit);
+        double spacing = (last - first) / (core.Count - 1);
+        double top = tops.Min(), bottom = bottoms.Max();
+        if (top >= first - spacing && bottom <= last + spacing) return false;
+        string key = $"ages[{control.Id}].table";
+        string Num(double v) => v.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture);
+        problems.Add(new Finding
+        {
+            Severity = Severity.Error, Code = ProjectIO.ProjectCodes.VarvesOutsideCore, Item = control.Id, Core = control.Core,
+            Message = $"the varve count '{control.Id}' covers {Num(top)}-{Num(bottom)} {unit.Symbol()}, outside core '{control.Core}''s sampled range {Num(first)}-{Num(last)} {unit.Symbol()}",
+            File = project.Document.FilePath, Line = project.Document.Lines.LineOf(key), Field = key, Depth = top < first - spacing ? top : bottom,
+        });
+        return true;
     }
 }

@@ -6,23 +6,27 @@ namespace StratLink.AgeModelling;
 /// <summary>
 /// A counted varve sequence reduced to depth points with a signed varve count from the anchor: the top of
 /// each varve and the bottom of the last, counted from the anchor depth (positive downwards, older).
-/// The age at a point is anchor age + count x (1 + e z) in each iteration, z ~ N(0, 1) once for the whole
-/// sequence: the counting error is treated as systematic, sigma = e n, growing with the number of varves
-/// counted (methods: varve counting errors, "systematic relative error e gives sigma = e n"; Zolitschka et
-/// al. 2015, QSR 117:1-41). This is the conservative choice: independent per-varve errors would give sigma
-/// ~ sqrt(n), which is smaller for long sequences.
+/// Each point also carries the variance its count has accumulated from the anchor under the miscount model:
+/// every varve is miscounted (missed or split, one year off) with its interval's miscount rate r, independently,
+/// so the cumulative counting error is a random walk whose variance grows by r per varve (independent
+/// per-varve errors give sigma ~ sqrt(n); Zolitschka et al. 2015, QSR 117:1-41, from memory). An optional
+/// systematic relative error e adds sigma = e n on top (one factor for the whole count).
 /// </summary>
 public sealed class VarveSequence
 {
     /// <summary>Long sequences keep at most this many points (every k-th varve top plus the ends); between kept points the curve is straight.</summary>
     public const int MaxPoints = 400;
 
-    private VarveSequence(double[] depths, double[] counts, int varveCount)
+    private VarveSequence(double[] depths, double[] counts, double[] variances, int varveCount)
     {
         Depths = depths;
         Counts = counts;
+        Variances = variances;
         VarveCount = varveCount;
     }
+
+    /// <summary>Variance (yr^2) of the random-walk counting error accumulated from the anchor to each point.</summary>
+    public double[] Variances { get; }
 
     /// <summary>Core depths of the kept points, ascending, in the project unit.</summary>
     public double[] Depths { get; }
@@ -37,7 +41,11 @@ public sealed class VarveSequence
     /// own count is fractional inside a varve, the count of the next varve in a gap, and 0 above the first varve.
     /// Bad layers (bottom above top, overlaps, wrong order) give errors naming the control and the varve.
     /// </summary>
-    public static VarveSequence? Build(string controlId, double[] tops, double[] bottoms, double anchorDepth, FindingList problems)
+    public static VarveSequence? Build(string controlId, double[] tops, double[] bottoms, double anchorDepth, FindingList problems) =>
+        Build(controlId, tops, bottoms, anchorDepth, _ => 0, problems);
+
+    /// <param name="miscountRateAt">Miscount rate of the varve whose mid-depth is the argument.</param>
+    public static VarveSequence? Build(string controlId, double[] tops, double[] bottoms, double anchorDepth, Func<double, double> miscountRateAt, FindingList problems)
     {
         if (tops.Length != bottoms.Length)
         {
@@ -70,18 +78,27 @@ public sealed class VarveSequence
             anchorCount = anchorDepth < bottoms[j] ? j + (anchorDepth - tops[j]) / (bottoms[j] - tops[j]) : j + 1;
         }
 
+        // Miscount variance summed over varves 0..k-1; the anchor's share of its own varve by its fraction.
+        var prefix = new double[n + 1];
+        for (int k = 0; k < n; k++) prefix[k + 1] = prefix[k] + miscountRateAt(0.5 * (tops[k] + bottoms[k]));
+        int whole = (int)Math.Floor(anchorCount);
+        double anchorPrefix = whole >= n ? prefix[n] : prefix[whole] + (anchorCount - whole) * (prefix[whole + 1] - prefix[whole]);
+
         // Points: top of varve k has count k; the bottom of the last varve has count n.
         int step = Math.Max(1, (int)Math.Ceiling((n + 1) / (double)MaxPoints));
         var depths = new List<double>();
         var counts = new List<double>();
+        var variances = new List<double>();
         for (int k = 0; k < n; k += step)
         {
             depths.Add(tops[k]);
             counts.Add(k - anchorCount);
+            variances.Add(Math.Abs(prefix[k] - anchorPrefix));
         }
         depths.Add(bottoms[n - 1]);
         counts.Add(n - anchorCount);
-        return new VarveSequence([.. depths], [.. counts], n);
+        variances.Add(Math.Abs(prefix[n] - anchorPrefix));
+        return new VarveSequence([.. depths], [.. counts], [.. variances], n);
     }
 
     private static string Num(double v) => v.ToString("0.###", CultureInfo.InvariantCulture);

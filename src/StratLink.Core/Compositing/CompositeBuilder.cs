@@ -56,7 +56,7 @@ public static class CompositeBuilder
         if (prepared.Count == 0)
             throw new ArgumentException($"No core of {project.FilePath} has both readable samples and a mapping to the reference core; there is nothing to composite.");
 
-        var cores = prepared.Select((p, i) => new CompositeCore(i, p.Spec, p.Table, p.Ensemble, p.Signals, settings.Standardise, unit)).ToList();
+        var cores = prepared.Select((p, i) => new CompositeCore(i, p.Spec, p.Table, p.Ensemble, p.Signals, settings.Standardise, unit, settings.KeepEvents)).ToList();
         if (settings.Standardise)
             foreach (var core in cores)
                 foreach (var (name, samples) in core.Samples)

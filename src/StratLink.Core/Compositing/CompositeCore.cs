@@ -5,7 +5,11 @@ using StratLink.Tables;
 
 namespace StratLink.Compositing;
 
-/// <summary>One core prepared for compositing: its table, mappings, unusable intervals and usable samples per signal.</summary>
+/// <summary>
+/// One core prepared for compositing: its table, mappings, unusable intervals and usable samples per signal. The
+/// samples leave out the core's event layers unless <c>keepEvents</c>: an event bed is not the background signal the
+/// stacks, the splice's values and the analyses describe.
+/// </summary>
 internal sealed class CompositeCore
 {
     /// <summary>
@@ -14,8 +18,10 @@ internal sealed class CompositeCore
     /// </summary>
     public const double BridgeSpacings = 2.5;
 
-    public CompositeCore(int index, CoreSpec spec, CoreTable table, MappingEnsemble ensemble, IEnumerable<string> signals, bool standardise, DepthUnit unit)
+    public CompositeCore(int index, CoreSpec spec, CoreTable table, MappingEnsemble ensemble, IEnumerable<string> signals, bool standardise, DepthUnit unit,
+        bool keepEvents = false)
     {
+        _events = keepEvents ? AgeModelling.EventFreeScale.None : AgeModelling.EventFreeScale.Of(spec, unit);
         Index = index;
         Spec = spec;
         Table = table;
@@ -28,6 +34,8 @@ internal sealed class CompositeCore
             if (table.Signals.TryGetValue(s, out var values)) samples[s] = Usable(s, table.Depths, values, bridge, standardise);
         Samples = samples;
     }
+
+    private readonly AgeModelling.EventFreeScale _events;
 
     public int Index { get; }
     public string Id => Spec.Id;
@@ -54,7 +62,7 @@ internal sealed class CompositeCore
         {
             // The cursor must see every depth in order, so test it before the NaN check.
             bool unusable = cursor.IsUnusable(depths[i]);
-            if (unusable || double.IsNaN(values[i])) continue;
+            if (unusable || double.IsNaN(values[i]) || _events.Covers(depths[i])) continue;
             d.Add(depths[i]);
             v.Add(values[i]);
         }

@@ -31,6 +31,9 @@ public static class DemoSiteGenerator
 
     private const int HistoryYears = 6000;
 
+    /// <summary>Share of varves the counts miss or split (half each): 2 %, the common practice rate the age model assumes.</summary>
+    private const double VarveMiscountRate = 0.02;
+
     /// <summary>Samples average the column over their slice, resolved in this many sub-steps (event layers are a few mm thick).</summary>
     private const int SubSamples = 10;
 
@@ -126,6 +129,7 @@ public static class DemoSiteGenerator
                 Signals = [.. SignalNames],
                 Gaps = [.. gaps],
                 Disturbed = disturbed,
+                Events = EventIntervals(strat, events.Count, length, gaps),
             });
         }
 
@@ -234,6 +238,21 @@ public static class DemoSiteGenerator
             gaps.Add(DepthInterval.FromTopBottom(Math.Round(top, 1), Math.Round(top + width, 1), DepthUnit.Centimetre));
         }
         return gaps.OrderBy(g => g.Top).ToList();
+    }
+
+    /// <summary>Every event layer wholly inside the recovered core and clear of its gaps, as logged (to the mm).</summary>
+    private static ImmutableList<DepthInterval> EventIntervals(CoreStratigraphy strat, int eventCount, double length, IReadOnlyList<DepthInterval> gaps)
+    {
+        var list = ImmutableList.CreateBuilder<DepthInterval>();
+        for (int e = 0; e < eventCount; e++)
+        {
+            if (strat.LayerOf(e) is not { } layer || layer.Top < 0 || layer.Base > length) continue;
+            double top = Math.Round(layer.Top, 1), bottom = Math.Round(layer.Base, 1);
+            if (gaps.Any(g => g.Top.In(DepthUnit.Centimetre) <= bottom && g.Bottom.In(DepthUnit.Centimetre) >= top)) continue;
+            if (list.Count > 0 && top < list[^1].Bottom.In(DepthUnit.Centimetre)) continue;
+            list.Add(DepthInterval.FromTopBottom(top, bottom, DepthUnit.Centimetre));
+        }
+        return list.ToImmutable();
     }
 
     private static double[] SampleDepths(double length, IReadOnlyList<DepthInterval> gaps)
@@ -356,21 +375,18 @@ public static class DemoSiteGenerator
     }
 
     /// <summary>
-    /// The coring year at the freeze core's top; the reference piston core's varve count over its whole length,
-    /// anchored at its intact top in the coring year, which the age model uses; and, as independent checks listed
-    /// with <c>exclude: true</c>, the published tephra ages (true age plus an error of their stated sigma) and the
-    /// freeze core's own count of its top metre.
+    /// Every age control of the site, all used: the coring year at the freeze core's top, the published tephra
+    /// ages (true age plus an error of their stated sigma), and two varve counts anchored at their intact tops in
+    /// the coring year, with the common 2 % miscount rate: the reference piston core's over its whole length and
+    /// the freeze core's over its metre.
     /// <para>
     /// Scenario: the inner basin is laminated throughout, so the reference core carries a varve chronology. An
     /// earlier version dated the piston cores by tephras 500-1500 yr apart only; with the accumulation rate free
     /// to wander between them, every age-model member then misplaced samples by tens of years, which smears an
     /// 11-yr line over many frequency bins: no member could find the cycles the site was made with. Annually
     /// resolved chronologies are what make decadal cycles detectable in sediment records (common practice).
-    /// The tephras and the freeze-core count are not used as well because each member must be in stratigraphic
-    /// order: one draw of a 2 % counting error and independent draws of tephra ages with 25-40 yr errors agree to
-    /// within the ~10 yr between the count's points too rarely for the age model's rejection step (every
-    /// iteration had to be pooled when they were all used). Checking a varve chronology against tephras of known
-    /// age is itself common practice; the check summaries show how well they agree.
+    /// The age model carries the ensemble on the longer count and weighs each member by the tephras, the coring
+    /// year and the freeze-core count.
     /// </para>
     /// </summary>
     private static ImmutableList<AgeControlSpec> AgeControls(Random rng, IReadOnlyList<EventLayer> events, IReadOnlyList<MarkerSpec> markers)
@@ -387,19 +403,20 @@ public static class DemoSiteGenerator
             double published = Math.Round(events[e].AgeBP + Normal.Sample(rng, 0, sigma));
             ages.Add(new CalendarAgeControl
             {
-                Id = events[e].Id + "-age", Marker = events[e].Id, Age = CalendarAge.FromYearsBP(published), Error = sigma, Exclude = true,
+                Id = events[e].Id + "-age", Marker = events[e].Id, Age = CalendarAge.FromYearsBP(published), Error = sigma,
             });
         }
         ages.Add(new VarveCountControl
         {
             Id = "varves", Core = VarveCore, Table = $"cores/{VarveCore}-varves.csv",
-            AnchorDepth = CoreDepth.From(0, DepthUnit.Centimetre), AnchorAge = CalendarAge.FromYearsBP(CoringAgeBP), CountError = 0.02,
-            Exclude = true,
+            AnchorDepth = CoreDepth.From(0, DepthUnit.Centimetre), AnchorAge = CalendarAge.FromYearsBP(CoringAgeBP),
+            MiscountRate = VarveMiscountRate,
         });
         ages.Add(new VarveCountControl
         {
             Id = "varves-p1", Core = ReferenceCore, Table = $"cores/{ReferenceCore}-varves.csv",
-            AnchorDepth = CoreDepth.From(0, DepthUnit.Centimetre), AnchorAge = CalendarAge.FromYearsBP(CoringAgeBP), CountError = 0.02,
+            AnchorDepth = CoreDepth.From(0, DepthUnit.Centimetre), AnchorAge = CalendarAge.FromYearsBP(CoringAgeBP),
+            MiscountRate = VarveMiscountRate,
         });
         return ages.ToImmutable();
     }
@@ -418,8 +435,8 @@ public static class DemoSiteGenerator
         {
             double top = boundaries[k], bottom = boundaries[k + 1];
             double u = rng.NextDouble();
-            if (u < 0.01 && k + 1 < trueCount) bottom = boundaries[++k + 1];
-            else if (u < 0.02)
+            if (u < VarveMiscountRate / 2 && k + 1 < trueCount) bottom = boundaries[++k + 1];
+            else if (u < VarveMiscountRate)
             {
                 double mid = 0.5 * (top + bottom);
                 counted.Add(new VarveLayer(Math.Round(top, 2), Math.Round(mid, 2)));

@@ -74,8 +74,10 @@ public static class DemoSiteWriter
         + $"not input to them. The site \"{site.Project.Site.Name}\", its cores, events and data are invented.\n\n"
         + $"The ages: the sediment is laminated, and the reference core {site.ReferenceCoreId} carries a varve count over its whole "
         + $"length ({site.ReferenceCountedVarves.Count} varves counted, {site.ReferenceTrueVarveCount} true), anchored at its intact top in the "
-        + $"coring year with a 2 % counting error; the age model uses it with the coring year. The tephra ages and the freeze core "
-        + $"{site.VarveCoreId}'s own count are listed with exclude: true, as independent checks of the varve chronology. The true climate "
+        + $"coring year with a 2 % miscount rate, and the freeze core {site.VarveCoreId} one over its metre ({site.CountedVarves.Count} counted, "
+        + $"{site.TrueVarveCount} true). The age model uses every control: the reference count carries the ensemble, the coring year, the "
+        + $"tephra ages and the freeze-core count weigh its members. Each core lists its event layers (turbidites, flood beds, tephras) "
+        + $"under events: the age model cuts them out as instantaneous deposits. The true climate "
         + $"signal holds AR(1) red noise, cycles of 11 yr (amplitude 0.6) and 88 yr (0.8), and regime shifts at "
         + string.Join(" and ", site.History.RegimeShifts.Select(r => FormattableString.Invariant($"{r.AgeBP:0} cal BP ({r.Step:+0.0;-0.0})")))
         + "; the varve chronology keeps the 11-yr cycle in most age-model members.\n";

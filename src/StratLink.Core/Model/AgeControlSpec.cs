@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using StratLink.Quantities;
 
 namespace StratLink.Model;
@@ -9,6 +10,15 @@ public abstract record AgeControlSpec
 
     /// <summary>Set by the user to leave a contradicted control out of the age model (it stays listed).</summary>
     public bool Exclude { get; init; }
+
+    /// <summary>
+    /// Prior probability that the control is an outlier (its age does not date its depth), 0..1; default
+    /// <see cref="DefaultOutlierPrior"/>.
+    /// </summary>
+    public double OutlierPrior { get; init; } = DefaultOutlierPrior;
+
+    /// <summary>5 %: the prior outlier probability commonly given to single dates in published Bayesian age models (common practice; Bronk Ramsey 2009, Radiocarbon 51:1023-1045, from memory).</summary>
+    public const double DefaultOutlierPrior = 0.05;
 
     /// <summary>Trade word for the kind, as written in the project file.</summary>
     public abstract string KindName { get; }
@@ -71,8 +81,23 @@ public sealed record VarveCountControl : AgeControlSpec
     /// <summary>1 sigma of the anchor age, years (0 for a coring year known exactly).</summary>
     public double AnchorError { get; init; }
 
-    /// <summary>Relative counting error (0.02 = 2 %), 1 sigma.</summary>
+    /// <summary>Systematic relative counting error (0.02 = 2 %), 1 sigma, one factor for the whole count; 0 = none.</summary>
     public double CountError { get; init; }
+
+    /// <summary>
+    /// Share of varves miscounted (missed or split, each off by one year), 0 &lt; r &lt; 1; the errors accumulate
+    /// along the count as a random walk. Default <see cref="DefaultMiscountRate"/>.
+    /// </summary>
+    public double MiscountRate { get; init; } = DefaultMiscountRate;
+
+    /// <summary>2 %: common practice for well-laminated sediment.</summary>
+    public const double DefaultMiscountRate = 0.02;
+
+    /// <summary>Intervals (core depth) counted with less confidence, each with its own miscount rate.</summary>
+    public ImmutableList<UncertainCount> Uncertain { get; init; } = [];
 
     public override string KindName => "varve-count";
 }
+
+/// <summary>An interval of a varve count with its own miscount rate (faint or disturbed laminae).</summary>
+public sealed record UncertainCount(DepthInterval Interval, double MiscountRate);

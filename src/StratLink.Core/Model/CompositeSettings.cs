@@ -14,6 +14,9 @@ public sealed record CompositeSettings
 
     /// <summary>Stack z-scores instead of the signals' own units.</summary>
     public bool Standardise { get; init; }
+
+    /// <summary>Keep the cores' event layers in the stacked records (default: left out, they are not the background signal).</summary>
+    public bool KeepEvents { get; init; }
 }
 
 public sealed record SpliceInterval(string Core, CompositeDepth From, CompositeDepth To);

@@ -22,6 +22,13 @@ public sealed record CoreSpec
     /// <summary>Recovered but disturbed (e.g. a soupy top): excluded from alignment and the splice.</summary>
     public ImmutableList<DepthInterval> Disturbed { get; init; } = [];
 
+    /// <summary>
+    /// Event layers (turbidites, flood beds, thick tephras): instantaneous deposits, sorted and disjoint. The age
+    /// model cuts them out (each takes the age of its base); stacks and analysis leave them out unless
+    /// <see cref="CompositeSettings.KeepEvents"/>; the alignment keeps them in the signal.
+    /// </summary>
+    public ImmutableList<DepthInterval> Events { get; init; } = [];
+
     /// <summary>Section tops, used when the table gives section-relative depths in a <c>section</c> column.</summary>
     public ImmutableList<SectionSpec> Sections { get; init; } = [];
 

@@ -33,10 +33,12 @@ internal static class AgesSection
                 string other => Unknown(m, other),
             };
             bool exclude = m.Bool("exclude") ?? false;
+            double outlierPrior = m.Double("outlier_prior") ?? AgeControlSpec.DefaultOutlierPrior;
+            if (outlierPrior is < 0 or >= 1) m.Error("outlier_prior", "the prior outlier probability is a fraction, at least 0 and below 1 (0.05 = 5 %)");
             if (control is not null)
             {
                 m.Finish();
-                list.Add(control with { Exclude = exclude });
+                list.Add(control with { Exclude = exclude, OutlierPrior = outlierPrior });
             }
             i++;
         }
@@ -98,14 +100,49 @@ internal static class AgesSection
         double? anchorAge = m.Double("anchor_age", required: true);
         double anchorError = m.Double("anchor_error") ?? 0;
         double countError = m.Double("count_error") ?? 0;
+        double miscount = m.Double("miscount_rate") ?? VarveCountControl.DefaultMiscountRate;
         if (countError is < 0 or >= 1) m.Error("count_error", "the relative counting error is a fraction between 0 and 1 (0.02 = 2 %)");
+        if (miscount is <= 0 or >= 1) m.Error("miscount_rate", "the miscount rate is a fraction strictly between 0 and 1 (0.02 = 2 % of varves missed or split)");
         if (anchorError < 0) m.Error("anchor_error", "an age error cannot be negative");
+        var uncertain = ReadUncertain(m);
         if (core is null || table is null || anchorDepth is null || anchorAge is null) return null;
         return new VarveCountControl
         {
             Id = id, Core = core, Table = table, AnchorDepth = anchorDepth.Value, AnchorAge = CalendarAge.FromYearsBP(anchorAge.Value),
-            AnchorError = anchorError, CountError = countError,
+            AnchorError = anchorError, CountError = countError, MiscountRate = miscount, Uncertain = uncertain,
         };
+    }
+
+    /// <summary><c>uncertain: [[top, bottom, rate], ...]</c>: intervals counted with their own miscount rate, disjoint.</summary>
+    private static ImmutableList<UncertainCount> ReadUncertain(YamlMap m)
+    {
+        var seq = m.Sequence("uncertain");
+        if (seq is null) return [];
+        var list = ImmutableList.CreateBuilder<UncertainCount>();
+        int k = 0;
+        foreach (var item in seq)
+        {
+            string path = $"{m.Join("uncertain")}[{k++}]";
+            int line = (int)item.Start.Line;
+            m.Context.Map.Set(path, line);
+            if (item is not YamlSequenceNode triple || triple.Children.Count != 3)
+            {
+                m.Context.Problems.AddError(ProjectCodes.InvalidValue, "an uncertain-count interval is written [top, bottom, miscount rate]", m.Context.File, line, path);
+                continue;
+            }
+            double? top = YamlMap.ReadDouble(triple[0], path, m.Context), bottom = YamlMap.ReadDouble(triple[1], path, m.Context);
+            double? rate = YamlMap.ReadDouble(triple[2], path, m.Context);
+            if (top is null || bottom is null || rate is null) continue;
+            if (top > bottom)
+                m.Context.Problems.AddError(ProjectCodes.IntervalInverted, $"interval top {top} lies below its bottom {bottom} (write [top, bottom, rate], top the shallower)", m.Context.File, line, path);
+            else if (rate is <= 0 or >= 1)
+                m.Context.Problems.AddError(ProjectCodes.InvalidValue, $"the miscount rate {rate} is not strictly between 0 and 1", m.Context.File, line, path);
+            else if (list.Any(u => u.Interval.Top.In(m.Context.Unit) < bottom && u.Interval.Bottom.In(m.Context.Unit) > top))
+                m.Context.Problems.AddError(ProjectCodes.IntervalOverlap, "uncertain-count intervals must not overlap", m.Context.File, line, path);
+            else
+                list.Add(new UncertainCount(DepthInterval.FromTopBottom(top.Value, bottom.Value, m.Context.Unit), rate.Value));
+        }
+        return list.ToImmutable();
     }
 
     public static YamlSequenceNode Write(IEnumerable<AgeControlSpec> ages, DepthUnit unit)
@@ -144,8 +181,16 @@ internal static class AgesSection
                     n.Add("anchor_age", YamlOut.Num(v.AnchorAge.YearsBP));
                     if (v.AnchorError != 0) n.Add("anchor_error", YamlOut.Num(v.AnchorError));
                     n.Add("count_error", YamlOut.Num(v.CountError));
+                    if (v.MiscountRate != VarveCountControl.DefaultMiscountRate) n.Add("miscount_rate", YamlOut.Num(v.MiscountRate));
+                    if (v.Uncertain.Count > 0)
+                    {
+                        var us = new YamlSequenceNode();
+                        foreach (var u in v.Uncertain) us.Add(YamlOut.FlowNums(u.Interval.Top.In(unit), u.Interval.Bottom.In(unit), u.MiscountRate));
+                        n.Add("uncertain", us);
+                    }
                     break;
             }
+            if (a.OutlierPrior != AgeControlSpec.DefaultOutlierPrior) n.Add("outlier_prior", YamlOut.Num(a.OutlierPrior));
             if (a.Exclude) n.Add("exclude", YamlOut.Bool(true));
             seq.Add(n);
         }

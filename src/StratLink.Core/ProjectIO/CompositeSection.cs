@@ -17,6 +17,7 @@ internal static class CompositeSection
             Step = m.Double("step") ?? s.Step,
             Splice = ReadSplice(m),
             Standardise = m.Bool("standardise") ?? false,
+            KeepEvents = m.Bool("keep_events") ?? false,
         };
         if (s.Step <= 0) m.Error("step", "the composite step must be positive");
         m.Finish();
@@ -69,6 +70,7 @@ internal static class CompositeSection
             n.Add("splice", seq);
         }
         if (s.Standardise) n.Add("standardise", YamlOut.Bool(true));
+        if (s.KeepEvents) n.Add("keep_events", YamlOut.Bool(true));
         return n;
     }
 

@@ -46,6 +46,7 @@ internal static class CoresSection
             Signals = (m.StringList("signals") ?? []).ToImmutableList(),
             Gaps = ReadIntervals(m, "gaps", unit),
             Disturbed = ReadIntervals(m, "disturbed", unit),
+            Events = ReadEvents(m, unit),
             Sections = ReadSections(m, unit),
             MissingValues = (m.StringList("missing_values") ?? []).ToImmutableList(),
             HeaderLine = m.Int("header_line"),
@@ -74,6 +75,22 @@ internal static class CoresSection
         if (Enum.TryParse<RepeatedDepths>(text.Trim(), ignoreCase: true, out var v) && Enum.IsDefined(v) && !char.IsDigit(text.Trim()[0])) return v;
         m.Error("repeated_depths", $"repeated_depths is '{text}'; write error, mean, median or first");
         return RepeatedDepths.Error;
+    }
+
+    /// <summary>Event layers, sorted by top; two that overlap are an error at the later one's line.</summary>
+    private static ImmutableList<DepthInterval> ReadEvents(YamlMap m, DepthUnit unit)
+    {
+        var events = ReadIntervals(m, "events", unit);
+        var sorted = events.Select((e, k) => (Event: e, Index: k)).OrderBy(e => e.Event.Top).ToList();
+        for (int k = 1; k < sorted.Count; k++)
+        {
+            var (before, after) = (sorted[k - 1], sorted[k]);
+            if (after.Event.Top >= before.Event.Bottom) continue;
+            string path = $"{m.Join("events")}[{Math.Max(before.Index, after.Index)}]";
+            m.Context.Problems.AddError(ProjectCodes.IntervalOverlap,
+                $"event layer {after.Event} overlaps event layer {before.Event}: one deposit is one interval", m.Context.File, m.Context.Map.LineOf(path) ?? m.Line, path);
+        }
+        return [.. sorted.Select(e => e.Event)];
     }
 
     private static ImmutableList<DepthInterval> ReadIntervals(YamlMap m, string key, DepthUnit unit)
@@ -148,6 +165,7 @@ internal static class CoresSection
             if (c.Longitude is double lon) n.Add("longitude", YamlOut.Num(lon));
             if (c.Gaps.Count > 0) n.Add("gaps", Intervals(c.Gaps, unit));
             if (c.Disturbed.Count > 0) n.Add("disturbed", Intervals(c.Disturbed, unit));
+            if (c.Events.Count > 0) n.Add("events", Intervals(c.Events, unit));
             if (c.Sections.Count > 0)
             {
                 var ss = new YamlSequenceNode();

@@ -15,6 +15,11 @@ public static class ProjectCodes
     public const string UnknownMarker = "project.unknown-marker";
     public const string UnknownSignal = "project.unknown-signal";
     public const string IntervalInverted = "project.interval-inverted";
+    public const string IntervalOverlap = "project.interval-overlap";
+    public const string EventInGap = "project.event-in-gap";
+    public const string EventThickerThanCore = "project.event-thicker-than-core";
+    public const string MarkerOutsideEvent = "project.marker-outside-event";
+    public const string VarvesOutsideCore = "project.varves-outside-core";
     public const string DepthOutsideCore = "project.depth-outside-core";
     public const string MissingFile = "project.missing-file";
     public const string PathOutsideProject = "project.path-outside-project";

@@ -50,6 +50,8 @@ public static class BuildWorkflow
             files.AddRange(CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
             foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
                 files.Add(AgesCsvWriter.WriteFile(directory, series));
+            if (result.Ages.Composite is { } compositeAges) files.Add(AgesCsvWriter.WriteFile(directory, compositeAges));
+            if (AgeFigures.Write(result.Ages, Path.Combine(directory, "figures")) is { } ageFigure) files.Add(ageFigure);
             files.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
         }
         var relative = files.Select(f => Path.GetRelativePath(directory, f).Replace('\\', '/')).Order(StringComparer.Ordinal).ToList();

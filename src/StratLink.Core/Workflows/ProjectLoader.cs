@@ -50,6 +50,7 @@ public static class ProjectLoader
         var checks = new TableChecks(project, tables, doc.Lines, problems);
         checks.DepthsInsideCores();
         checks.SignalsPresent();
+        checks.EventLayers();
         return new LoadedProject(doc, project, tables, problems);
     }
 
@@ -140,11 +141,45 @@ public static class ProjectLoader
             {
                 Intervals(c, c.Gaps, "gaps", "gap");
                 Intervals(c, c.Disturbed, "disturbed", "disturbed interval");
+                Intervals(c, c.Events, "events", "event layer");
                 for (int k = 0; k < c.Sections.Count; k++)
                     if (Outside(c.Id, c.Sections[k].Top, out string range))
                         Add(Severity.Warning, $"cores[{c.Id}].sections[{k}].top", c.Id, c.Sections[k].Id, c.Sections[k].Top,
                             $"section '{c.Sections[k].Id}' starts at {Show(c.Sections[k].Top)}, outside core '{c.Id}''s sampled range {range}, so no sample lies in it");
             }
+        }
+
+        /// <summary>
+        /// Event layers against the rest of the core: one overlapping a gap (nothing was recovered there to be an event),
+        /// one thicker than the core's sampled length, a marker of an event kind whose depth lies in no event layer of a
+        /// core that lists its event layers, and uncertain-count intervals of a varve count outside its core.
+        /// </summary>
+        public void EventLayers()
+        {
+            foreach (var c in project.Cores)
+            {
+                for (int k = 0; k < c.Events.Count; k++)
+                {
+                    var e = c.Events[k];
+                    foreach (var g in c.Gaps.Where(g => g.Top < e.Bottom && g.Bottom > e.Top))
+                        Add(Severity.Error, $"cores[{c.Id}].events[{k}]", c.Id, null, e.Top,
+                            $"event layer {e} of core '{c.Id}' overlaps its gap {g}: no sediment was recovered there", ProjectCodes.EventInGap);
+                    if (tables.TryGetValue(c.Id, out var t) && t.Count > 1 && e.Length > t.Depths[^1] - t.Depths[0])
+                        Add(Severity.Error, $"cores[{c.Id}].events[{k}]", c.Id, null, e.Top,
+                            $"event layer {e} is thicker than core '{c.Id}''s sampled range {Range(t)}", ProjectCodes.EventThickerThanCore);
+                }
+                if (c.Events.Count == 0) continue;
+                foreach (var m in project.Markers.Where(m => m.Kind is MarkerKind.Tephra or MarkerKind.Turbidite or MarkerKind.Flood or MarkerKind.Event))
+                    if (m.DepthIn(c.Id) is { } d && !c.Events.Any(e => d >= e.Top && d <= e.Bottom))
+                        Add(Severity.Warning, $"markers[{m.Id}].depths.{c.Id}", c.Id, m.Id, d,
+                            $"{m.Kind.Name()} marker '{m.Id}' at {Show(d)} lies in none of core '{c.Id}''s event layers: list the layer under the core's events, or check the depth", ProjectCodes.MarkerOutsideEvent);
+            }
+            foreach (var v in project.Ages.OfType<VarveCountControl>())
+                for (int k = 0; k < v.Uncertain.Count; k++)
+                    if (tables.TryGetValue(v.Core, out var t) && t.Count > 0
+                        && (v.Uncertain[k].Interval.Top.In(t.Unit) < t.Depths[0] || v.Uncertain[k].Interval.Bottom.In(t.Unit) > t.Depths[^1]))
+                        Add(Severity.Error, $"ages[{v.Id}].uncertain[{k}]", v.Core, v.Id, v.Uncertain[k].Interval.Top,
+                            $"uncertain-count interval {v.Uncertain[k].Interval} of varve count '{v.Id}' reaches outside core '{v.Core}''s sampled range {Range(t)}", ProjectCodes.VarvesOutsideCore);
         }
 
         public void SignalsPresent()

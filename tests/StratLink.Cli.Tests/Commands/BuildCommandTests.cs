@@ -24,8 +24,11 @@ public sealed class BuildCommandTests : IDisposable
         foreach (string core in cores)
         {
             AssertHeader(Path.Combine(out1, $"mapping-{core}.csv"), "depth_cm", "composite_depth_cm", "composite_depth_lo_cm", "composite_depth_hi_cm");
-            AssertHeader(Path.Combine(out1, $"ages-{core}.csv"), "depth_cm", "age_median_bp", "age_lo_bp", "age_hi_bp");
+            AssertHeader(Path.Combine(out1, $"ages-{core}.csv"), "depth_cm", "age_median_bp", "age_lo_bp", "age_hi_bp",
+                "event_free_depth_cm", "rate_median_cm_per_yr", "rate_lo_cm_per_yr", "rate_hi_cm_per_yr", "time_median_yr_per_cm", "time_lo_yr_per_cm", "time_hi_yr_per_cm");
         }
+        Assert.Contains("accumulation rate", File.ReadAllText(Path.Combine(out1, "figures", "ages-composite.svg")));
+        AssertHeader(Path.Combine(out1, "ages-composite.csv"), "composite_depth_cm", "age_median_bp", "event_free_depth_cm", "rate_median_cm_per_yr", "time_hi_yr_per_cm");
         AssertHeader(Path.Combine(out1, "composite.csv"), "composite_depth_cm", "age_median_bp", "age_lo_bp", "age_hi_bp", "source_core",
             "ms_mean", "ms_lo", "ms_hi", "ms_n", "density_mean", "ca_ti_mean");
         AssertHeader(Path.Combine(out1, "checks.csv"), "severity", "code", "core", "item", "depth_cm", "message");

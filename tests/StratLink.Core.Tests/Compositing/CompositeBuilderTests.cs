@@ -1,6 +1,7 @@
 using StratLink.Alignment;
 using StratLink.Compositing;
 using StratLink.Model;
+using StratLink.Quantities;
 using static StratLink.Tests.Compositing.CompositeFixture;
 
 namespace StratLink.Tests.Compositing;
@@ -182,5 +183,31 @@ public class CompositeBuilderTests
         Assert.Equal(first.Mean, second.Mean);
         Assert.Equal(first.Lo, second.Lo);
         Assert.Equal(first.Hi, second.Hi);
+    }
+    [Fact]
+    public void Stacks_leave_event_layers_out_unless_asked_to_keep_them()
+    {
+        // One core, ms = 10 everywhere but 500 inside a turbidite at 40-45 cm (the event bed's own signal). The stack
+        // (stated rule: event layers are left out by default, kept with composite.keep_events) must have no value
+        // inside the event by default, 10 outside it, and 500 inside when the events are kept. Exact arithmetic.
+        var a = Table("A", Depths(0, 100, 1), ("ms", d => d >= 40 && d <= 45 ? 500 : 10));
+        var spec = Spec("A") with { Events = [DepthInterval.FromTopBottom(40, 45, Cm)] };
+        var project = Project("A", 1, spec);
+        var alignment = Aligned("A", Ensemble(DepthMapping.Identity("A", Cm, 0, 100)));
+
+        var left = CompositeBuilder.Build(Load(project, a), alignment, null, null, CancellationToken.None).Record("ms")!;
+        var kept = CompositeBuilder.Build(Load(project with { Composite = project.Composite with { KeepEvents = true } }, a), alignment, null, null, CancellationToken.None).Record("ms")!;
+
+        var grid = CompositeBuilder.Build(Load(project, a), alignment, null, null, CancellationToken.None).Grid;
+        for (int k = 0; k < grid.Count; k++)
+        {
+            double z = grid.ValueAt(k);
+            if (z >= 40 && z <= 45)
+            {
+                Assert.True(double.IsNaN(left.Mean[k]), $"stack at {z} cm holds the event ({left.Mean[k]})");
+                Assert.Equal(500, kept.Mean[k], 9);
+            }
+            else Assert.Equal(10, left.Mean[k], 9);
+        }
     }
 }

@@ -42,7 +42,7 @@ public class DemoCompositeTests
         Assert.InRange(result.Grid.ValueAt(result.Grid.Count - 1), deepest, deepest + step);
         Assert.InRange(result.Grid.ValueAt(0), shallowest - step, shallowest);
 
-        // Expected n by an independent per-row count with the mappings' own inverse and CoreSpec.IsUnusable.
+        // Expected n by an independent per-row count with the mappings' own inverse, CoreSpec.IsUnusable and the event layers.
         // Rows within 1.5 cm (core depth) of a core's end or of a gap/disturbed edge are left out: there the
         // outcome depends on sample spacing (interpolation needs samples on both sides).
         const double margin = 1.5;
@@ -59,10 +59,11 @@ public class DemoCompositeTests
                 {
                     var table = loaded.Tables[core.Id];
                     double d = mappings[core.Id].Median.ToCoreValue(z);
-                    var edges = core.Gaps.Concat(core.Disturbed).SelectMany(i => new[] { i.Top.In(project.DepthUnit), i.Bottom.In(project.DepthUnit) })
+                    var edges = core.Gaps.Concat(core.Disturbed).Concat(core.Events).SelectMany(i => new[] { i.Top.In(project.DepthUnit), i.Bottom.In(project.DepthUnit) })
                         .Append(table.Depths[0]).Append(table.Depths[^1]);
                     if (edges.Any(e => Math.Abs(e - d) < margin)) { ambiguous = true; break; }
-                    bool inside = d >= table.Depths[0] && d <= table.Depths[^1] && !core.IsUnusable(d);
+                    // Event layers are left out of the stacks by default (composite.keep_events).
+                    bool inside = d >= table.Depths[0] && d <= table.Depths[^1] && !core.IsUnusable(d) && !core.Events.Any(e => e.ContainsValue(d));
                     if (inside) expected++;
                     if (core.Id == project.ReferenceCoreId && core.IsInGap(d)) refInGap = true;
                 }

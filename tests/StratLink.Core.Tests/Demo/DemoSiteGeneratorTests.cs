@@ -210,16 +210,16 @@ public class DemoSiteGeneratorTests
         var top = Assert.Single(p.Ages.OfType<CalendarAgeControl>(), a => a.Core is not null);
         Assert.Equal(("MW19-F4", 0.0, -69.0), (top.Core, top.Depth!.Value.In(Cm), top.Age.YearsBP));
         Assert.False(top.Exclude);
-        // Tephra ages and the freeze core's count are independent checks of the reference core's varve chronology.
+        // Every age control is used: the tephra ages and the freeze core's count weigh the reference core's varve chronology.
         var tephraAges = p.Ages.OfType<CalendarAgeControl>().Where(a => a.Marker is not null).ToList();
         Assert.Equal(3, tephraAges.Count);
-        Assert.All(tephraAges, a => Assert.True(a.Exclude, a.Id));
+        Assert.All(tephraAges, a => Assert.False(a.Exclude, a.Id));
         var varves = p.Ages.OfType<VarveCountControl>().ToList();
         Assert.Equal(2, varves.Count);
-        Assert.Equal(("MW19-F4", "cores/MW19-F4-varves.csv", 0.0, -69.0, 0.02, true),
-            (varves[0].Core, varves[0].Table, varves[0].AnchorDepth.In(Cm), varves[0].AnchorAge.YearsBP, varves[0].CountError, varves[0].Exclude));
-        Assert.Equal(("MW19-P1", "cores/MW19-P1-varves.csv", 0.0, -69.0, 0.02, false),
-            (varves[1].Core, varves[1].Table, varves[1].AnchorDepth.In(Cm), varves[1].AnchorAge.YearsBP, varves[1].CountError, varves[1].Exclude));
+        Assert.Equal(("MW19-F4", "cores/MW19-F4-varves.csv", 0.0, -69.0, 0.02, 0.0, false),
+            (varves[0].Core, varves[0].Table, varves[0].AnchorDepth.In(Cm), varves[0].AnchorAge.YearsBP, varves[0].MiscountRate, varves[0].CountError, varves[0].Exclude));
+        Assert.Equal(("MW19-P1", "cores/MW19-P1-varves.csv", 0.0, -69.0, 0.02, 0.0, false),
+            (varves[1].Core, varves[1].Table, varves[1].AnchorDepth.In(Cm), varves[1].AnchorAge.YearsBP, varves[1].MiscountRate, varves[1].CountError, varves[1].Exclude));
     }
 
     [Theory]
@@ -313,5 +313,28 @@ public class DemoSiteGeneratorTests
         double w = 2 * Math.PI / period;
         double[] p = Fit.LinearCombination(t, y, _ => 1.0, x => Math.Cos(w * x), x => Math.Sin(w * x));
         return Math.Sqrt(p[1] * p[1] + p[2] * p[2]);
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    public void EventLayersAreListedWithTheirTrueThickness(int seed)
+    {
+        // The generator's hidden events are the outside reference: each core lists every event layer wholly in its
+        // recovered part and clear of its gaps, at the layer's true top and base to the logged mm (0.05 cm rounding),
+        // disjoint; every marker of an event kind sits inside one of its core's listed layers.
+        var site = DemoSiteGenerator.Generate(seed);
+        foreach (var core in site.Project.Cores)
+        {
+            Assert.NotEmpty(core.Events);
+            for (int k = 1; k < core.Events.Count; k++) Assert.True(core.Events[k].Top >= core.Events[k - 1].Bottom);
+            double total = core.Events.Sum(e => e.Length);
+            Assert.True(total > 0.5, $"{core.Id}: events {total} cm in all");
+            foreach (var m in site.Project.Markers.Where(m => m.DepthIn(core.Id) is not null))
+            {
+                double d = m.DepthIn(core.Id)!.Value.In(Cm);
+                Assert.Contains(core.Events, e => d >= e.Top.In(Cm) - 0.05 && d <= e.Bottom.In(Cm) + 0.05);
+            }
+        }
     }
 }

@@ -61,6 +61,73 @@ public sealed class ProjectReaderTests
     }
 
     [Fact]
+    public void Event_layer_with_top_below_base()
+    {
+        var f = Single(Head + "cores:\n  - id: A\n    table: a.csv\n    events:\n      - [10, 5]\n", ProjectCodes.IntervalInverted);
+        Assert.Equal("p.yaml", f.File);
+        Assert.Equal(7, f.Line);
+        Assert.Equal("cores[A].events[0]", f.Field);
+    }
+
+    [Fact]
+    public void Overlapping_event_layers()
+    {
+        var f = Single(Head + "cores:\n  - id: A\n    table: a.csv\n    events:\n      - [10, 20]\n      - [15, 25]\n", ProjectCodes.IntervalOverlap);
+        Assert.Equal("p.yaml", f.File);
+        Assert.Equal(8, f.Line);
+        Assert.Equal("cores[A].events[1]", f.Field);
+        Assert.Equal(Severity.Error, f.Severity);
+    }
+
+    private const string VarveHead = "cores:\n  - id: A\n    table: a.csv\nages:\n  - id: v\n    kind: varve-count\n    core: A\n    table: v.csv\n"
+        + "    anchor_depth: 0\n    anchor_age: -69\n";
+
+    [Theory]
+    [InlineData("0")]
+    [InlineData("1")]
+    [InlineData("1.5")]
+    [InlineData("-0.02")]
+    public void Miscount_rate_outside_the_open_unit_interval(string rate)
+    {
+        var f = Single(Head + VarveHead + $"    miscount_rate: {rate}\n", ProjectCodes.InvalidValue);
+        Assert.Equal("p.yaml", f.File);
+        Assert.Equal(13, f.Line);
+        Assert.Equal("ages[v].miscount_rate", f.Field);
+    }
+
+    [Fact]
+    public void Uncertain_count_interval_with_a_bad_rate()
+    {
+        var f = Single(Head + VarveHead + "    uncertain:\n      - [10, 20, 1.2]\n", ProjectCodes.InvalidValue);
+        Assert.Equal(14, f.Line);
+        Assert.Equal("ages[v].uncertain[0]", f.Field);
+    }
+
+    [Fact]
+    public void Outlier_prior_outside_the_unit_interval()
+    {
+        var f = Single(Head + VarveHead + "    outlier_prior: 1\n", ProjectCodes.InvalidValue);
+        Assert.Equal(13, f.Line);
+        Assert.Equal("ages[v].outlier_prior", f.Field);
+    }
+
+    [Fact]
+    public void Event_uncertain_count_and_outlier_keys_read_back()
+    {
+        var doc = ProjectReader.Parse(Head + "cores:\n  - id: A\n    table: a.csv\n    events:\n      - [30, 34.5]\n      - [10, 12]\n"
+            + "ages:\n  - id: v\n    kind: varve-count\n    core: A\n    table: v.csv\n    anchor_depth: 0\n    anchor_age: -69\n"
+            + "    miscount_rate: 0.03\n    uncertain:\n      - [40, 50, 0.1]\n    outlier_prior: 0.1\n", "p.yaml");
+        Assert.Empty(doc.Problems);
+        var core = doc.Project!.Cores[0];
+        Assert.Equal([10.0, 30.0], core.Events.Select(e => e.Top.In(StratLink.Quantities.DepthUnit.Centimetre)));
+        var v = Assert.IsType<StratLink.Model.VarveCountControl>(doc.Project.Ages[0]);
+        Assert.Equal(0.03, v.MiscountRate);
+        Assert.Equal(0.1, v.Uncertain[0].MiscountRate);
+        Assert.Equal(0.1, v.OutlierPrior);
+        Assert.Equal(0.05, ProjectReader.Parse(Head + VarveHead, "p.yaml").Project!.Ages[0].OutlierPrior);
+    }
+
+    [Fact]
     public void Unknown_unit()
     {
         var f = Single("format: stratlink-project/1\ndepth_unit: inch\ncores:\n  - id: A\n    table: a.csv\n", ProjectCodes.UnknownUnit);

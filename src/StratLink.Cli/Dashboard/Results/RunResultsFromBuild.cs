@@ -19,7 +19,7 @@ public static class RunResultsFromBuild
             var grid = build.Composite.Grid;
             double top = ages.Composite?.Depths.FirstOrDefault() ?? grid.ValueAt(0);
             double bottom = ages.Composite is { Count: > 0 } c ? c.Depths[^1] : grid.ValueAt(grid.Count - 1);
-            curve = new AgeCurve(ages, top, bottom);
+            curve = new AgeCurve(ages, top, bottom, ages.Composite, ages.CompositeEvents);
         }
         else
         {
@@ -64,7 +64,8 @@ public static class RunResultsFromBuild
             (median, lo, hi) = (s.ModelledMedianBP, s.ModelledLoBP, s.ModelledHiBP);
             ranges = double.IsNaN(lo) ? null : $"{Num(lo)}..{Num(hi)}";
         }
-        return new ControlOutcome(s.Id, depth, median, lo, hi, Flags(s), ranges);
+        string? posterior = double.IsNaN(s.ModelledLoBP) ? null : $"{Num(s.ModelledLoBP)}..{Num(s.ModelledHiBP)}";
+        return new ControlOutcome(s.Id, depth, median, lo, hi, Flags(s), ranges, posterior, s.OutlierShare);
     }
 
     private static string Flags(AgeControlSummary s)
@@ -73,6 +74,7 @@ public static class RunResultsFromBuild
         if (s.Problem is { } problem) flags.Add("unusable: " + problem);
         if (s.Excluded) flags.Add("excluded");
         if (s.Flagged) flags.Add("FLAGGED");
+        if (s.OutlierShare >= AgeModeller.OutlierWarnShare) flags.Add("OUTLIER");
         if (!double.IsNaN(s.ContradictionShare) && s.ContradictionShare > 0)
             flags.Add($"out of order {Num(s.ContradictionShare * 100)}%");
         if (!double.IsNaN(s.LeaveOneOutZ)) flags.Add($"z {s.LeaveOneOutZ.ToString("+0.0;-0.0", CultureInfo.InvariantCulture)}");

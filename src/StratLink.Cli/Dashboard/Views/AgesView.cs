@@ -7,8 +7,10 @@ using StratLink.Model;
 namespace StratLink.Cli.Dashboard.Views;
 
 /// <summary>
-/// The age-depth model on composite depth with its 95 % band and the controls with their error
-/// bars, above (or, on wide screens, beside) the list of controls with their calibrated ranges.
+/// The age-depth model on composite depth with its 95 % band, the controls with their error bars, the event
+/// layers (marked beside the depth axis: they take no time) and the median accumulation rate along the right
+/// edge, above (or, on wide screens, beside) the list of controls with their prior (given or calibrated) and
+/// posterior (modelled) 95 % ranges and posterior outlier shares.
 /// The plot scrolls and zooms along composite depth with the keys of every plotting screen.
 /// </summary>
 public sealed class AgesView : DashView, INavigable
@@ -110,7 +112,7 @@ public sealed class AgesView : DashView, INavigable
     private void DrawPlot(System.Drawing.Rectangle area, Palette pal)
     {
         string unit = _state.Project.DepthUnit.Symbol();
-        Put(area.X, area.Y, Fit($" Age model: age (cal BP) across, composite depth ({unit}) down", area.Width), pal.Header);
+        Put(area.X, area.Y, Fit($" Age model: age (cal BP) across, composite depth ({unit}) down; E event layer", area.Width), pal.Header);
         var results = _state.Results;
         if (results?.Ages is not { } curve)
         {
@@ -120,7 +122,9 @@ public sealed class AgesView : DashView, INavigable
             return;
         }
         const int axis = 7;
-        int rows = area.Height - 2, cols = area.Width - axis - 1;
+        // The rate column: median accumulation rate on event-free depth, every fourth row.
+        int rateWidth = curve.Series is not null && area.Width >= 40 ? 7 : 0;
+        int rows = area.Height - 2, cols = area.Width - axis - 1 - rateWidth;
         if (rows < 2 || cols < 4 || !FitAxis()) return;
         double top = DepthAxis.Top, bottom = DepthAxis.Bottom;
         double dotDepth = DepthAxis.PerRow / 4;
@@ -162,7 +166,13 @@ public sealed class AgesView : DashView, INavigable
                 Fill(plotLeft + c0, area.Y + 1 + r, c1 - c0 + 1, Glyphs.Band, pal.Band);
             }
             if (r % 4 == 0) Put(area.X, area.Y + 1 + r, FormatNumber(top + r * 4 * dotDepth).PadLeft(6)[^6..], pal.Dim);
+            double rowTop = top + r * 4 * dotDepth, rowBottom = rowTop + 4 * dotDepth;
+            if (curve.Events is { Count: > 0 } ev && Enumerable.Range(0, ev.Count).Any(k => ev.Tops[k] < rowBottom && ev.Bottoms[k] > rowTop))
+                Put(area.X + axis - 1, area.Y + 1 + r, "E", pal.Tie);
+            if (rateWidth > 0 && r % 4 == 0 && RateAt(curve.Series!, rowTop + 2 * dotDepth) is double rate)
+                Put(area.X + area.Width - rateWidth + 1, area.Y + 1 + r, FormatRate(rate).PadLeft(rateWidth - 1)[^(rateWidth - 1)..], pal.Dim);
         }
+        if (rateWidth > 0) Put(area.X + area.Width - rateWidth + 1, area.Y + area.Height - 1, $"{unit}/yr".PadLeft(rateWidth - 1), pal.Dim);
         var canvas = new DotCanvas(cols, rows);
         CurvePlotter.DrawProfile(canvas, median, ageMin, ageMax);
         PutCanvas(plotLeft, area.Y + 1, canvas, pal.Curve);
@@ -189,6 +199,18 @@ public sealed class AgesView : DashView, INavigable
         if (room > 8) Put(plotLeft + axisText.Length + 1 + Math.Max(0, (room - readout.Length) / 2), area.Y + area.Height - 1, readout, pal.Strong, room);
     }
 
+    /// <summary>Median accumulation rate of the composite grid row nearest <paramref name="depth"/>; null off the grid or where undefined.</summary>
+    private static double? RateAt(AgeModelling.AgeSeries series, double depth)
+    {
+        if (series.Count == 0 || depth < series.Depths[0] || depth > series.Depths[^1]) return null;
+        int i = Array.BinarySearch(series.Depths, depth);
+        if (i < 0) i = Math.Min(~i, series.Count - 1);
+        double rate = series.RateMedian[i];
+        return double.IsFinite(rate) ? rate : null;
+    }
+
+    private static string FormatRate(double v) => v.ToString(v >= 10 ? "0" : v >= 1 ? "0.0" : "0.###", CultureInfo.InvariantCulture);
+
     /// <summary>Controls the model could not place or date (unusable, undrawn) have no error bar to draw.</summary>
     private static bool Drawable(ControlOutcome c) => double.IsFinite(c.AgeLoBP) && double.IsFinite(c.AgeHiBP) && double.IsFinite(c.AgeMedianBP);
 
@@ -214,7 +236,7 @@ public sealed class AgesView : DashView, INavigable
     }
 
     /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
-    public static string ListHeader() => $"{"use",-3} {"control",-11} {"kind",-11} {"where",-14} {"given",-17} {"95% cal BP",-15} flags";
+    public static string ListHeader() => $"{"use",-3} {"control",-10} {"kind",-8} {"where",-12} {"given",-14} {"prior 95%",-11} {"post 95%",-11} {"outl",4} flags";
 
     public string ListLine(AgeControlSpec a, ControlOutcome? outcome)
     {
@@ -228,15 +250,20 @@ public sealed class AgesView : DashView, INavigable
         };
         string given = a switch
         {
-            CalendarAgeControl c => $"{FormatNumber(c.Age.YearsBP)}±{FormatNumber(c.Error)} cal BP",
+            CalendarAgeControl c => $"{FormatNumber(c.Age.YearsBP)}±{FormatNumber(c.Error)} BP",
             RadiocarbonAgeControl r => $"{FormatNumber(r.C14Age.Years)}±{FormatNumber(r.C14Error)} 14C",
-            VarveCountControl v => $"count from {FormatNumber(v.AnchorAge.YearsBP)}",
+            VarveCountControl v => $"from {FormatNumber(v.AnchorAge.YearsBP)} BP",
             _ => "",
         };
         string range = outcome is null
             ? (_state.Results is null ? "not run yet" : "-")
             : outcome.Ranges95 ?? (Drawable(outcome) ? $"{FormatNumber(outcome.AgeLoBP)}..{FormatNumber(outcome.AgeHiBP)}" : "-");
-        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 11),-11} {Cut(a.KindName, 11),-11} {Cut(where, 14),-14} {Cut(given, 17),-17} {Cut(range, 15),-15} {outcome?.Flags}";
+        string posterior = outcome?.Posterior95 ?? "-";
+        // The varve count that carries the chronology has no outlier share: "-".
+        string share = outcome is null || double.IsNaN(outcome.OutlierShare) ? "-" : $"{Math.Round(100 * outcome.OutlierShare):0}%";
+        // Sized so that the outlier share still shows at 80 columns; the flags follow on wider screens.
+        return $"{(a.Exclude ? "out" : "in"),-3} {Cut(a.Id, 10),-10} {Cut(a.KindName, 8),-8} {Cut(where, 12),-12} {Cut(given, 14),-14} {Cut(range, 11),-11} "
+            + $"{Cut(posterior, 11),-11} {share,4} {outcome?.Flags}";
     }
 
     private string FormatDepth(Quantities.CoreDepth? d) =>
