@@ -36,10 +36,15 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
             Assert.True(m.Success, output);
             Assert.True(int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture) > 50, $"{period} yr: {m.Value}");
         }
-        // Each true shift lies inside the member age range of a shift the test reports.
-        var ranges = ShiftRange().Matches(output).Select(m => (Lo: double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), Hi: double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture))).ToList();
-        foreach (double trueAge in new[] { 1480.0, 2710.0 })
-            Assert.Contains(ranges, r => r.Lo <= trueAge && trueAge <= r.Hi);
+        // Each true shift lies within half the regime test's cut-off (75 yr) of the member age range of a shift the
+        // test reports: with the varve-dated demo those ranges (about 20 yr) are narrower than the precision of a
+        // shift's place in a noisy record, which the cut-off sets (Rodionov 2004).
+        const double reach = 75;
+        // The generator's Ca/Ti falls at 1480 cal BP and rises at 2710 cal BP (read forward in time, towards the present).
+        static double N(Group g) => double.Parse(g.Value, CultureInfo.InvariantCulture);
+        var shifts = ShiftRange().Matches(output).Select(m => (Rises: N(m.Groups[2]) > N(m.Groups[1]), Lo: N(m.Groups[3]), Hi: N(m.Groups[4]))).ToList();
+        foreach (var (trueAge, rises) in new[] { (1480.0, false), (2710.0, true) })
+            Assert.Contains(shifts, r => r.Rises == rises && r.Lo - reach <= trueAge && trueAge <= r.Hi + reach);
         Assert.True(File.Exists(Path.Combine(target, "shifts.csv")));
     }
 
@@ -57,6 +62,6 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
         Assert.Equal("", output);
     }
 
-    [GeneratedRegex(@"95 % range over members (-?\d+)-(-?\d+) cal BP")]
+    [GeneratedRegex(@"mean (-?[\d.]+) -> (-?[\d.]+)(?: \(tentative\))?, 95 % range over members (-?\d+)-(-?\d+) cal BP")]
     private static partial Regex ShiftRange();
 }
