@@ -361,8 +361,7 @@ public static class AgeModeller
                     return null;
                 }
                 int before = problems.Count;
-                double RateAt(double depth) => v.Uncertain.FirstOrDefault(u => u.Interval.ContainsValue(depth)) is { } u ? u.MiscountRate : v.MiscountRate;
-                var sequence = VarveSequence.Build(v.Id, layers.Tops, layers.Bottoms, v.AnchorDepth.In(unit), RateAt, problems);
+                var sequence = VarveSequence.Build(v.Id, layers.Tops, layers.Bottoms, v.AnchorDepth.In(unit), v.MiscountRateAt, problems);
                 if (sequence is null) { problem = problems.Count > before ? problems[^1].Message : "bad varve table"; return null; }
                 return PreparedControl.Varve(v, sequence).Placed(placement);
             }

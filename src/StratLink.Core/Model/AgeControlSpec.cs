@@ -96,6 +96,10 @@ public sealed record VarveCountControl : AgeControlSpec
     /// <summary>Intervals (core depth) counted with less confidence, each with its own miscount rate.</summary>
     public ImmutableList<UncertainCount> Uncertain { get; init; } = [];
 
+    /// <summary>Miscount rate at a core depth in the project unit: its uncertain interval's, else the count's own.</summary>
+    public double MiscountRateAt(double depth) =>
+        Uncertain.FirstOrDefault(u => u.Interval.ContainsValue(depth)) is { } u ? u.MiscountRate : MiscountRate;
+
     public override string KindName => "varve-count";
 }
 
