@@ -41,6 +41,7 @@ public static class HelpText
         Legend(glyphs.Unicode ? "⡇⠸ braille dots" : "* stars", "the signal, min to max in each dot row, on its 2-98 % range (the clipped share is below the logs)");
         Legend(glyphs.Gap, "gap: no recovery, nothing known");
         Legend(glyphs.Disturbed, "disturbed: left out of alignment and splice");
+        Legend(glyphs.EventLayer, "event layer: an instantaneous deposit, cut out of the ages and the stacks, kept for alignment");
         Legend(glyphs.TieMark + " " + glyphs.EventTieMark + " " + glyphs.SelectedTieMark, "a tie (marker layer) in this core: a tephra or other layer, an event layer (turbidite, flood, event), the selected tie; solid lines join it across logs");
         Legend(glyphs.TieThrough, "a tie passing a log that does not hold it, on its way to a log further on");
         Legend("dotted lines", "the alignment: which depths correspond after the last run");

@@ -69,6 +69,7 @@ public sealed class PaletteTests(ITestOutputHelper output)
         Assert.Single(pairs);
         Assert.Contains(glyphs.Gap, logs);
         Assert.Contains(glyphs.Disturbed, logs);
+        Assert.Contains(glyphs.EventLayer, logs); // T-3's turbidite at 98-104 cm
         Assert.Contains(glyphs.SelectedTieMark, logs); // ash-1, selected
         Assert.Contains(glyphs.EventTieMark, logs); // tb-1, a turbidite
         Assert.Contains(glyphs.ActiveLog + "T-1", logs);

@@ -29,6 +29,8 @@ internal sealed class TestProject : IDisposable
               - [80, 85]
           - id: T-3
             table: t3.csv
+            events:
+              - [98, 104]
         markers:
           - id: ash-1
             kind: tephra

@@ -12,6 +12,9 @@ public sealed record GlyphSet
     public required char CurveInk { get; init; }
     public required string Gap { get; init; }
     public required string Disturbed { get; init; }
+
+    /// <summary>Shading of an event layer (an instantaneous deposit), a shape apart from gaps and disturbed intervals.</summary>
+    public required string EventLayer { get; init; }
     public required string Band { get; init; }
     public required string TieMark { get; init; }
 
@@ -40,14 +43,14 @@ public sealed record GlyphSet
 
     public static readonly GlyphSet Utf8 = new()
     {
-        Unicode = true, CurveInk = '*', Gap = "░", Disturbed = "▚", Band = "▒", TieMark = "◆",
+        Unicode = true, CurveInk = '*', Gap = "░", Disturbed = "▚", EventLayer = "≡", Band = "▒", TieMark = "◆",
         EventTieMark = "▼", SelectedTieMark = "◈", TieThrough = "┄", ActiveLog = "▸", PartnerLog = "⇔", ExcludedControlMark = "○",
         ControlMark = "●", ErrorBar = "─", Separator = "│", BarFull = "█", BarEmpty = "░", Up = "↑", Down = "↓",
     };
 
     public static readonly GlyphSet Ascii = new()
     {
-        Unicode = false, CurveInk = '*', Gap = ":", Disturbed = "~", Band = ".", TieMark = "#",
+        Unicode = false, CurveInk = '*', Gap = ":", Disturbed = "~", EventLayer = "%", Band = ".", TieMark = "#",
         EventTieMark = "v", SelectedTieMark = "@", TieThrough = "-", ActiveLog = ">", PartnerLog = "=", ExcludedControlMark = "x",
         ControlMark = "o", ErrorBar = "-", Separator = "|", BarFull = "#", BarEmpty = "-", Up = "Up", Down = "Dn",
     };

@@ -363,6 +363,7 @@ public sealed class CorrelationView : DashView, INavigable
             if (core is null) continue;
             if (core.Gaps.Any(g => Overlaps(g, top, bottom))) background[r] = (Glyphs.Gap, pal.Gap);
             else if (core.Disturbed.Any(g => Overlaps(g, top, bottom))) background[r] = (Glyphs.Disturbed, pal.Disturbed);
+            else if (core.Events.Any(g => Overlaps(g, top, bottom))) background[r] = (Glyphs.EventLayer, pal.Disturbed);
             if (background[r] is { } b) Fill(plotLeft, HeadRows + r, width, b.Glyph, b.Attr);
         }
 
@@ -550,6 +551,7 @@ public sealed class CorrelationView : DashView, INavigable
             text += i >= 0 && !double.IsNaN(values[i]) ? $"  {slot.Signal} {values[i].ToString("G4", CultureInfo.InvariantCulture)}" : "  no value";
         }
         if (core?.Disturbed.Any(d => d.ContainsValue(slot.Cursor)) == true) text += " (disturbed)";
+        if (core?.Events.Any(e => e.ContainsValue(slot.Cursor)) == true) text += " (event layer)";
         return text;
     }
 
