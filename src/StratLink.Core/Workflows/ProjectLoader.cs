@@ -70,6 +70,7 @@ public static class ProjectLoader
         foreach (string core in project.TargetCoreIds)
             if (tables.TryGetValue(core, out var t) && !t.Signals.ContainsKey(spec.Signal))
                 Error("signal", ProjectCodes.UnknownSignal, $"the target is aligned on signal '{spec.Signal}', which core '{core}' does not have; its signals: {string.Join(", ", t.SignalNames)}");
+        // Every numeric column is read, so a message about a missing one can list those the table has.
         var columns = new CoreSpec
         {
             Id = "target",
@@ -77,7 +78,6 @@ public static class ProjectLoader
             DepthColumn = spec.AgeColumn,
             HeaderLine = spec.HeaderLine,
             Columns = spec.Columns,
-            Signals = spec.AgeErrorColumn is { } ec ? [spec.Signal, ec] : [spec.Signal],
         };
         CoreTable? table;
         try
