@@ -23,7 +23,7 @@ public static class TargetAgeControls
     {
         var p = project.Project;
         if (p.Target is not { } spec || project.Target is not { } record) return [];
-        int seed = p.Alignment.Seed ?? p.AgeModel.Seed;
+        int seed = Seed(p);
         var controls = ImmutableList.CreateBuilder<AgeControlSpec>();
         foreach (string id in p.TargetCoreIds)
         {
@@ -55,6 +55,9 @@ public static class TargetAgeControls
         }
         return controls.ToImmutable();
     }
+
+    /// <summary>The seed the target alignments derive theirs from (with each core's id): the alignment's.</summary>
+    public static int Seed(Project p) => p.Alignment.Seed ?? p.AgeModel.Seed;
 
     private static string Years(double v) => v.ToString("0", CultureInfo.InvariantCulture);
 }

@@ -66,6 +66,7 @@ public sealed class DatedTargetBuildTests(ITestOutputHelper output) : IDisposabl
         var transferred = build.Ages.Controls.Where(c => c.Id.StartsWith(TargetAgeControls.IdPrefix + "ODP849:", StringComparison.Ordinal)).ToList();
         Assert.Equal(DatedTargetSpec.DefaultControlsPerCore + 1, transferred.Count);
         Assert.All(transferred, c => Assert.True(c.Used, $"{c.Id} is not used"));
+        Assert.Contains("LR04stack.txt by d18o (ensemble seed 7", build.Methods["target"]);
 
         var table = loaded.Tables["ODP849"];
         double[] published = table.Signals["yrBP"].Select(a => a / 1000).ToArray(); // kyr
