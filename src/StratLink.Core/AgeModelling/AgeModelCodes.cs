@@ -16,4 +16,5 @@ public static class AgeModelCodes
     public const string Extrapolated = "age-model.extrapolated";
     public const string Outlier = "age-model.outlier";
     public const string FewEffective = "age-model.effective-members";
+    public const string TargetAges = "age-model.target-ages";
 }

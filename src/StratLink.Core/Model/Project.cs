@@ -23,11 +23,17 @@ public sealed record Project
     public AgeModelSettings AgeModel { get; init; } = new();
     public CheckSettings Checks { get; init; } = new();
 
+    /// <summary>A dated record some cores are aligned to for ages; null when the project has none.</summary>
+    public DatedTargetSpec? Target { get; init; }
+
     public CoreSpec? FindCore(string id) => Cores.FirstOrDefault(c => c.Id == id);
     public MarkerSpec? FindMarker(string id) => Markers.FirstOrDefault(m => m.Id == id);
 
     /// <summary>The reference core: the one named in the alignment settings, else the first core.</summary>
     public string ReferenceCoreId => Alignment.Reference ?? Cores.FirstOrDefault()?.Id ?? "";
+
+    /// <summary>The cores the target dates: those it names, else the reference core; none without a target.</summary>
+    public IReadOnlyList<string> TargetCoreIds => Target is not { } t ? [] : t.Cores.Count > 0 ? t.Cores : [ReferenceCoreId];
 
     public CoreDepth Depth(double value) => CoreDepth.From(value, DepthUnit);
     public CompositeDepth CompositeDepthOf(double value) => CompositeDepth.From(value, DepthUnit);

@@ -79,6 +79,7 @@ public static class ProjectReader
             Composite = CompositeSection.Read(m.Map("composite")),
             AgeModel = AgeModelSection.Read(m.Map("age_model")),
             Checks = ChecksSection.Read(m.Map("checks")),
+            Target = TargetSection.Read(m.Map("target")),
         };
         m.Finish();
         ProjectValidator.Validate(project, ctx.Problems, ctx.Map);

@@ -59,6 +59,9 @@ internal static class ProjectValidator
         if (p.Composite.Splice is { } splice)
             foreach (var iv in splice.Where(iv => !coreIds.Contains(iv.Core)))
                 Error(ProjectCodes.UnknownCore, "composite.splice", $"splice interval names core '{iv.Core}', which the project does not have");
+        if (p.Target is { } target)
+            foreach (string core in target.Cores.Where(c => !coreIds.Contains(c)))
+                Error(ProjectCodes.UnknownCore, "target.cores", $"the target dates core '{core}', which the project does not have");
         if (p.Cores.Count == 0 && map.LineOf("cores") is null)
             problems.AddError(ProjectCodes.MissingKey, "required key 'cores' is missing", map.File, 1, "cores");
     }

@@ -22,6 +22,7 @@ public static class ProjectWriter
         root.Add("composite", CompositeSection.Write(p.Composite, p.DepthUnit));
         root.Add("age_model", AgeModelSection.Write(p.AgeModel));
         if (ChecksSection.Write(p.Checks) is { } checks) root.Add("checks", checks);
+        if (p.Target is { } target) root.Add("target", TargetSection.Write(target));
 
         using var w = new StringWriter { NewLine = "\n" };
         new YamlStream(new YamlDocument(root)).Save(w, assignAnchors: false);

@@ -14,12 +14,22 @@ public sealed record BuildResult(
     IReadOnlyList<Finding> Findings)
 {
     /// <summary>The method of each stage, for run.json.</summary>
-    public IReadOnlyDictionary<string, string> Methods => new SortedDictionary<string, string>(StringComparer.Ordinal)
+    public IReadOnlyDictionary<string, string> Methods
     {
-        ["alignment"] = Alignment.Method + (Alignment.Seed is int s ? $" (ensemble seed {s})" : ""),
-        ["age_model"] = $"Monte Carlo, {Ages.MemberCount} members, {Project.Project.AgeModel.Interpolation} interpolation, seed {Ages.Seed}",
-        ["composite"] = Composite.MethodSummary,
-    };
+        get
+        {
+            var methods = new SortedDictionary<string, string>(StringComparer.Ordinal)
+            {
+                ["alignment"] = Alignment.Method + (Alignment.Seed is int s ? $" (ensemble seed {s})" : ""),
+                ["age_model"] = $"Monte Carlo, {Ages.MemberCount} members, {Project.Project.AgeModel.Interpolation} interpolation, seed {Ages.Seed}",
+                ["composite"] = Composite.MethodSummary,
+            };
+            if (Project.Project.Target is { } t)
+                methods["target"] = $"dtw of {string.Join(", ", Project.Project.TargetCoreIds)} to {t.Table} by {t.Signal} (ensemble seed {TargetAgeControls.Seed(Project.Project)} with each core's id); "
+                    + $"transferred ages as age controls {TargetAgeControls.IdPrefix}CORE:DEPTH";
+            return methods;
+        }
+    }
 
     public bool HasErrors => Findings.Any(f => f.Severity == Severity.Error);
 }

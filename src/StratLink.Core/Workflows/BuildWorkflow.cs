@@ -8,7 +8,7 @@ namespace StratLink.Workflows;
 
 /// <summary>
 /// The pipeline behind <c>stratlink build</c> and the dashboard's run: align every core to the
-/// reference, model ages on composite depth, build the composite and splice, check consistency.
+/// reference (and the cores a dated target dates to the target, for ages), model ages on composite depth, build the composite and splice, check consistency.
 /// It works on one snapshot and returns only when every stage is complete, so a cancelled run
 /// leaves the caller's previous results untouched.
 /// </summary>
@@ -23,16 +23,19 @@ public static class BuildWorkflow
         if (project.Problems.HasErrors)
             throw new InvalidOperationException("The project has errors; 'stratlink check' lists them. Fix them before a build.");
         var alignment = CoreAligner.Align(project, Stage(progress, 0), ct);
+        var targetFindings = new FindingList();
+        var dated = StageTimes.Measure("alignment", () => WithTargetAges(project, targetFindings, ct));
         var varveProblems = new FindingList();
-        var varves = StageTimes.Measure("ages", () => VarveLayerLoader.Load(project, varveProblems, ct));
-        var ages = StageTimes.Measure("ages", () => AgeModeller.Run(project, alignment, varves, Stage(progress, 1), ct));
+        var varves = StageTimes.Measure("ages", () => VarveLayerLoader.Load(dated, varveProblems, ct));
+        var ages = StageTimes.Measure("ages", () => AgeModeller.Run(dated, alignment, varves, Stage(progress, 1), ct));
         var composite = StageTimes.Measure("composite", () => CompositeBuilder.Build(project, alignment, ages.IsBuilt ? ages : null, Stage(progress, 2), ct));
-        var checks = StageTimes.Measure("checks", () => ChecksFor(project, alignment, ages, Stage(progress, 3), ct));
+        var checks = StageTimes.Measure("checks", () => ChecksFor(dated, alignment, ages, Stage(progress, 3), ct));
         progress?.Report(new WorkProgress("done", 1));
 
         var findings = new List<Finding>();
         findings.AddRange(project.Problems);
         findings.AddRange(alignment.Findings);
+        findings.AddRange(targetFindings);
         findings.AddRange(varveProblems);
         findings.AddRange(ages.Findings);
         findings.AddRange(composite.Findings);
@@ -59,6 +62,13 @@ public static class BuildWorkflow
         RunManifest.Write(Path.Combine(directory, "run.json"), result.Project.Document, result.Project.Project, result.Methods, relative,
             StageTimes.Current?.Snapshot());
         return relative;
+    }
+
+    /// <summary>The project with the ages transferred from its dated target added to its age controls (unchanged without a target).</summary>
+    private static LoadedProject WithTargetAges(LoadedProject project, FindingList findings, CancellationToken ct)
+    {
+        var transferred = TargetAgeControls.For(project, findings, ct);
+        return transferred.Count == 0 ? project : project.WithProject(project.Project with { Ages = project.Project.Ages.AddRange(transferred) });
     }
 
     private static IReadOnlyList<Finding> ChecksFor(LoadedProject project, AlignmentResult alignment, AgeModelResult ages,

@@ -1,3 +1,4 @@
+using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Model;
 using StratLink.ProjectIO;
@@ -25,8 +26,11 @@ public sealed class LoadedProject
     /// <summary>Problems of the file and the tables; <see cref="FindingList.HasErrors"/> stops a build.</summary>
     public FindingList Problems { get; }
 
+    /// <summary>The dated target of the project's <c>target</c> section, when it could be read.</summary>
+    public DatedTargetRecord? Target { get; init; }
+
     public string FilePath => Document.FilePath;
 
     /// <summary>The same tables with an edited project (dashboard edits that do not touch tables).</summary>
-    public LoadedProject WithProject(Project edited) => new(Document with { Project = edited }, edited, Tables, Problems);
+    public LoadedProject WithProject(Project edited) => new(Document with { Project = edited }, edited, Tables, Problems) { Target = Target };
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Model;
 using StratLink.ProjectIO;
@@ -46,12 +47,71 @@ public static class ProjectLoader
             }
         }
 
+        string? targetFile = project.Target is { Table.Length: > 0 } ts ? paths.Check(ts.Table, "target.table", "target table") : null;
+
         var tables = ReadTables(project, tableFiles, problems, ct);
         var checks = new TableChecks(project, tables, doc.Lines, problems);
         checks.DepthsInsideCores();
         checks.SignalsPresent();
         checks.EventLayers();
-        return new LoadedProject(doc, project, tables, problems);
+        var target = targetFile is null ? null : ReadTarget(targetFile, project, tables, doc.Lines, problems, ct);
+        return new LoadedProject(doc, project, tables, problems) { Target = target };
+    }
+
+    /// <summary>
+    /// The target's table read like a core's (its age column in place of depth), cut to its age span, in years;
+    /// null with an error naming the <c>target</c> key when it is unusable.
+    /// </summary>
+    private static DatedTargetRecord? ReadTarget(string file, Project project, IReadOnlyDictionary<string, CoreTable> tables, SourceMap lines, FindingList problems, CancellationToken ct)
+    {
+        var spec = project.Target!;
+        void Error(string key, string code, string message) => problems.AddError(code, message, lines.File, lines.LineOf("target." + key) ?? lines.LineOf("target"), "target." + key);
+        string coresText = string.Join(", ", project.TargetCoreIds.Select(c => $"'{c}'"));
+        foreach (string core in project.TargetCoreIds)
+            if (tables.TryGetValue(core, out var t) && !t.Signals.ContainsKey(spec.Signal))
+                Error("signal", ProjectCodes.UnknownSignal, $"the target is aligned on signal '{spec.Signal}', which core '{core}' does not have; its signals: {string.Join(", ", t.SignalNames)}");
+        // Every numeric column is read, so a message about a missing one can list those the table has.
+        var columns = new CoreSpec
+        {
+            Id = "target",
+            Table = spec.Table,
+            DepthColumn = spec.AgeColumn,
+            HeaderLine = spec.HeaderLine,
+            Columns = spec.Columns,
+        };
+        CoreTable? table;
+        try
+        {
+            table = CoreTableReader.Read(file, columns, project.DepthUnit, problems, ct);
+        }
+        catch (Exception e) when (e is not OperationCanceledException)
+        {
+            problems.AddError(ProjectCodes.Unreadable, $"cannot read the target table: {e.Message}", file);
+            return null;
+        }
+        if (table is null) return null;
+        if (!table.Signals.TryGetValue(spec.Signal, out var values))
+        {
+            Error("signal", ProjectCodes.UnknownSignal, $"the target table has no numeric column for signal '{spec.Signal}' (map a column onto it under target.columns); it has: {string.Join(", ", table.SignalNames)}");
+            return null;
+        }
+        double[]? errors = null;
+        if (spec.AgeErrorColumn is { } errorColumn && !table.Signals.TryGetValue(errorColumn, out errors))
+        {
+            Error("age_error_column", ProjectCodes.TableMissingColumn, $"the target table has no numeric column '{errorColumn}'; it has: {string.Join(", ", table.SignalNames)}");
+            return null;
+        }
+        double young = spec.AgeSpan?.Young ?? double.NegativeInfinity, old = spec.AgeSpan?.Old ?? double.PositiveInfinity;
+        var keep = Enumerable.Range(0, table.Count)
+            .Where(i => table.Depths[i] >= young && table.Depths[i] <= old && double.IsFinite(values[i]) && (errors is null || double.IsFinite(errors[i]))).ToArray();
+        if (keep.Length < 2)
+        {
+            Error(spec.AgeSpan is null ? "table" : "age_span", ProjectCodes.TableEmpty, $"the target has {keep.Length} row(s) with an age and a value of '{spec.Signal}'{(spec.AgeSpan is null ? "" : " inside its age span")}; aligning {coresText} to it needs at least two");
+            return null;
+        }
+        double scale = spec.YearsPerUnit;
+        return new DatedTargetRecord(keep.Select(i => table.Depths[i] * scale).ToArray(), keep.Select(i => values[i]).ToArray(),
+            errors is null ? null : keep.Select(i => errors[i] * scale).ToArray());
     }
 
     /// <summary>Reads the cores' tables in parallel; findings are merged in core order so output does not depend on timing.</summary>
