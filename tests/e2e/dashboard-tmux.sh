@@ -39,7 +39,7 @@ fail() { echo "dashboard-tmux: FAIL: $*" >&2; echo "---- last screen" >&2; $T ca
 wait_for() {
   local pattern="$1" what="$2" limit="${3:-20}"
   for _ in $(seq $((limit * 5))); do
-    if $T capture-pane -p -t dash 2>/dev/null | grep -Eq "$pattern"; then return 0; fi
+    if grep -Eq "$pattern" <<<"$($T capture-pane -p -t dash 2>/dev/null)"; then return 0; fi
     sleep 0.2
   done
   fail "$what (waited for /$pattern/)"
@@ -66,8 +66,8 @@ run_size() {
   local n; n="$(echo "$cores" | wc -w)"
   local first="${cores%% *}" last="${cores##* }"
   local screen; screen="$($T capture-pane -p -t dash)"
-  for core in $cores; do echo "$screen" | grep -q -- "$core" || fail "core $core is not on the first screen"; done
-  echo "$screen" | grep -q "$n of $n cores shown" || fail "the header does not say $n of $n cores shown"
+  for core in $cores; do grep -q -- "$core" <<<"$screen" || fail "core $core is not on the first screen"; done
+  grep -q "$n of $n cores shown" <<<"$screen" || fail "the header does not say $n of $n cores shown"
   echo "   cores on the first screen: $cores"
 
   # A tie between the first and the last log: the last log is made the partner (Space), then t.
@@ -107,7 +107,7 @@ run_size() {
   $T send-keys -t dash 'r'
   wait_for "Running|Run finished" "r gave no run feedback" 30
   wait_for "Run finished|failed" "the run did not end" 180
-  $T capture-pane -p -t dash | grep -q "Run finished" || fail "the run failed"
+  grep -q "Run finished" <<<"$($T capture-pane -p -t dash)" || fail "the run failed"
   wait_for "results current" "header does not show current results"
   echo "   run: $((SECONDS - started)) s, $($T capture-pane -p -t dash | grep -Eo 'Run finished[^.]*')"
 
@@ -118,7 +118,7 @@ run_size() {
   wait_for "ash-1-age .* -?[0-9]+\\.\\.-?[0-9]+" "the ages screen lists no 95 % range for ash-1-age"
   # The demo's varve-dated band (about 20 yr over 3500 yr) can be narrower than the curve's own column at 80x24;
   # then the list must give each control's posterior 95 % range beside its prior.
-  $T capture-pane -p -t dash | grep -q "▒" || $T capture-pane -p -t dash | grep -Eq "ash-1-age .* -?[0-9]+\.\.-?[0-9]+ +-?[0-9]+\.\.-?[0-9]+" \
+  grep -q "▒" <<<"$($T capture-pane -p -t dash)" || grep -Eq "ash-1-age .* -?[0-9]+\.\.-?[0-9]+ +-?[0-9]+\.\.-?[0-9]+" <<<"$($T capture-pane -p -t dash)" \
     || fail "the ages screen draws no band and lists no posterior range"
   echo "   ages: $($T capture-pane -p -t dash | grep -Eo 'ash-1-age .*' | tr -s ' ' | head -c 70)"
 
@@ -147,7 +147,7 @@ run_size() {
   local top_label; top_label="$($T capture-pane -p -t dash | sed -n 4p | grep -Eo '^ *-?[0-9.]+' | tr -d ' ')"
   [ -n "$top_label" ] && python3 -c "import sys; sys.exit(0 if float(sys.argv[1]) > 0 else 1)" "$top_label" \
     || fail "the zoomed composite is not scrolled down (top row label '$top_label')"
-  $T capture-pane -p -t dash | grep -q "▶ $deepest cm" || fail "zooming lost the cursor at $deepest cm"
+  grep -q "▶ $deepest cm" <<<"$($T capture-pane -p -t dash)" || fail "zooming lost the cursor at $deepest cm"
   echo "   composite deepest: $deepest cm, zoomed from $zoomed to $($T capture-pane -p -t dash | grep -Eo '[0-9.]+ cm per row' | head -n 1), top row at $top_label"
 
   # Findings: step down the list until the detail pane shows the longest message of checks.csv in full.
@@ -188,11 +188,11 @@ sys.exit(0 if ' '.join(sys.argv[1].split()) in ' '.join(pane.split()) else 1)" "
   [ ! -f "$dir/.$(basename "$name" .yaml).recovery.yaml" ] || fail "recovery file left after save"
   local tie1; tie1="$(grep -A3 -E '^ *- id: tie-1$' "$project" | grep 'depths:' || true)"
   [ -n "$tie1" ] || fail "tie-1 not in the saved project"
-  echo "$tie1" | grep -q "$first:" && echo "$tie1" | grep -q "$last:" || fail "tie-1 does not join $first and $last: $tie1"
+  grep -q "$first:" <<<"$tie1" && grep -q "$last:" <<<"$tie1" || fail "tie-1 does not join $first and $last: $tie1"
   local tie; tie="$(grep -A3 -E '^ *- id: tie-2$' "$project" | grep 'depths:' || true)"
   [ -n "$tie" ] || fail "tie-2 not in the saved project"
   echo "   saved: tie-1 $tie1; tie-2 $tie"
-  echo "$tie" | grep -Eq "$core1: ${depth1}([,}]|0*[,}])" || fail "tie-2 is not at $core1 $depth1: $tie"
+  grep -Eq "$core1: ${depth1}([,}]|0*[,}])" <<<"$tie" || fail "tie-2 is not at $core1 $depth1: $tie"
   [ "$(echo "$tie" | grep -o "," | wc -l)" -eq 1 ] || fail "tie-2 does not join two cores: $tie"
 }
 

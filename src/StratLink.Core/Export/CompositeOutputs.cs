@@ -1,3 +1,4 @@
+using StratLink.AgeModelling;
 using StratLink.Compositing;
 using StratLink.ProjectIO;
 using StratLink.Workflows;
@@ -32,7 +33,10 @@ public static class CompositeOutputs
             WriteFile(Path.Combine(directory, "splice" + format.Extension()), w => SpliceCsvWriter.Write(result.Splice, result.Grid.Unit, w, format)),
         };
         foreach (var table in result.Mappings)
-            files.Add(WriteFile(Path.Combine(directory, MappingCsvWriter.FileName(table.CoreId, format)), w => MappingCsvWriter.Write(table, w, format)));
+        {
+            var events = project.Project.FindCore(table.CoreId) is { } core ? EventFreeScale.Of(core, table.Unit) : null;
+            files.Add(WriteFile(Path.Combine(directory, MappingCsvWriter.FileName(table.CoreId, format)), w => MappingCsvWriter.Write(table, w, format, events)));
+        }
         string figures = Path.Combine(directory, "figures");
         files.AddRange(CompositeFigures.WriteAll(result, figures));
         files.Add(CorrelationPanel.Write(project, result, figures));

@@ -1,3 +1,4 @@
+using StratLink.AgeModelling;
 using StratLink.Compositing;
 using StratLink.Quantities;
 
@@ -5,19 +6,22 @@ namespace StratLink.Export;
 
 /// <summary>
 /// <c>mapping-&lt;core&gt;.csv</c>: every sample depth of a core with its composite depth (median
-/// mapping) and the 2.5/97.5 percentiles over the alignment ensemble.
+/// mapping) and the 2.5/97.5 percentiles over the alignment ensemble; a core with event layers also gets its
+/// event-free depth (the depth with the event layers above it cut out, on which its ages are modelled).
 /// </summary>
 public static class MappingCsvWriter
 {
     public static string FileName(string coreId, TableFormat format = TableFormat.Csv) => $"mapping-{coreId}{format.Extension()}";
 
-    public static void Write(CoreMappingTable table, TextWriter output, TableFormat format = TableFormat.Csv)
+    public static void Write(CoreMappingTable table, TextWriter output, TableFormat format = TableFormat.Csv, EventFreeScale? events = null)
     {
+        bool eventFree = events is { Count: > 0 };
         var w = new DelimitedTableWriter(output, format);
-        w.Header(Columns(table.Unit));
+        w.Header(eventFree ? [.. Columns(table.Unit), $"event_free_depth_{table.Unit.Symbol()}"] : Columns(table.Unit));
         for (int i = 0; i < table.Count; i++)
         {
             w.Number(table.CoreDepths[i]).Number(table.Median[i]).Number(table.Lo[i]).Number(table.Hi[i]);
+            if (eventFree) w.Number(events!.ToEventFree(table.CoreDepths[i]));
             w.EndRow();
         }
     }

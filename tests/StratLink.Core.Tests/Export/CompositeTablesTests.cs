@@ -75,6 +75,22 @@ public class CompositeTablesTests
     }
 
     [Fact]
+    public void Mapping_table_of_a_core_with_event_layers_gives_its_event_free_depth()
+    {
+        // Events at 2-4 and 10-11 cm: event-free depth = depth less the thickness of the events above it, and inside
+        // an event the event-free depth of its top (an event takes no time; worked by hand).
+        var result = Build(withAges: false);
+        var events = new StratLink.AgeModelling.EventFreeScale([2, 10], [4, 11]);
+        var rows = Rows(w => MappingCsvWriter.Write(result.Mappings.Single(m => m.CoreId == "B"), w, TableFormat.Csv, events));
+        Assert.Equal("event_free_depth_cm", rows[0][^1]);
+        var byDepth = rows.Skip(1).ToDictionary(r => r[0], r => double.Parse(r[^1], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(1, byDepth["1"], 12);
+        Assert.Equal(2, byDepth["3"], 12);
+        Assert.Equal(3, byDepth["5"], 12);
+        Assert.Equal(10, byDepth["13"], 12);
+    }
+
+    [Fact]
     public void Splice_table_lists_intervals_in_composite_and_core_depth()
     {
         var result = Build(withAges: false);
