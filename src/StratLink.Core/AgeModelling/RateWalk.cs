@@ -57,7 +57,7 @@ internal sealed class RateWalk
         }
         zs.Add(z[0]);
         ys.Add(a[0]);
-        for (int s = 0; s + 1 < k; s++) Bridge(controls, z[s], a[s], z[s + 1], a[s + 1], rng, zs, ys);
+        for (int s = 0; s + 1 < k; s++) Bridge(controls, s, rng, zs, ys);
         if (_extentBottom > z[k - 1])
             Extrapolate(z[k - 1], a[k - 1], _extentBottom - z[k - 1], +1, Rate(z, a, k - 2), z[k - 1] - z[k - 2], rng, zs, ys);
         return new AgeDepthCurve([.. zs], [.. ys], z[0], z[k - 1], controls.Interpolation);
@@ -68,9 +68,12 @@ internal sealed class RateWalk
 
     private int StepsFor(double span) => (int)Math.Clamp(Math.Ceiling(span / _stepFloor - 1e-9), 1, StepsPerInterval);
 
-    /// <summary>Adds the knots after (z0, a0) up to and including (z1, a1).</summary>
-    private void Bridge(AgeDepthCurve controls, double z0, double a0, double z1, double a1, Random rng, List<double> zs, List<double> ys)
+    /// <summary>Adds the knots after control knot <paramref name="s"/> up to and including knot s + 1.</summary>
+    private void Bridge(AgeDepthCurve controls, int s, Random rng, List<double> zs, List<double> ys)
     {
+        double z0 = controls.CompositeDepths[s], a0 = controls.AgesBP[s], z1 = controls.CompositeDepths[s + 1], a1 = controls.AgesBP[s + 1];
+        // Sub-steps lie in segment s: the search starts there instead of bisecting all knots at every sub-step.
+        int segment = s;
         int n = StepsFor(z1 - z0);
         if (n == 1 || a1 == a0)
         {
@@ -79,7 +82,7 @@ internal sealed class RateWalk
             {
                 double zj = z0 + (z1 - z0) * j / n;
                 zs.Add(zj);
-                ys.Add(controls.AgeAt(zj));
+                ys.Add(controls.AgeAtAscending(zj, ref segment, out _));
             }
             zs.Add(z1);
             ys.Add(a1);
@@ -90,7 +93,7 @@ internal sealed class RateWalk
         double w = 0, total = 0, before = a0;
         for (int j = 0; j < n; j++)
         {
-            double after = j == n - 1 ? a1 : controls.AgeAt(z0 + (z1 - z0) * (j + 1) / n);
+            double after = j == n - 1 ? a1 : controls.AgeAtAscending(z0 + (z1 - z0) * (j + 1) / n, ref segment, out _);
             w += Normal.Sample(rng, 0, sd);
             duration[j] = Math.Max(0, after - before) * Math.Exp(w);
             total += duration[j];

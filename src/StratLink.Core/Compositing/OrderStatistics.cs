@@ -22,6 +22,23 @@ internal static class OrderStatistics
         return a + (h - lo) * (b - a);
     }
 
+    /// <summary>
+    /// Puts the order statistic of every rank in <paramref name="ranks"/> (0-based, ascending, distinct) at its index:
+    /// the middle rank is selected first and the others sought only in the part on their side of it.
+    /// </summary>
+    public static void SelectRanks(Span<double> values, ReadOnlySpan<int> ranks)
+    {
+        if (ranks.IsEmpty) return;
+        int m = ranks.Length / 2, pivot = ranks[m];
+        Select(values, pivot);
+        SelectRanks(values[..pivot], ranks[..m]);
+        var above = ranks[(m + 1)..];
+        if (above.IsEmpty) return;
+        Span<int> shifted = stackalloc int[above.Length];
+        for (int r = 0; r < above.Length; r++) shifted[r] = above[r] - pivot - 1;
+        SelectRanks(values[(pivot + 1)..], shifted);
+    }
+
     /// <summary>Moves the k-th smallest value (0-based) to index k, smaller ones before it, larger after (Hoare's selection).</summary>
     private static double Select(Span<double> v, int k)
     {
