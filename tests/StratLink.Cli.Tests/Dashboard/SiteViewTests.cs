@@ -134,7 +134,7 @@ public sealed class SiteViewTests(ITestOutputHelper output)
         Assert.True(Inked(2) > before, $"the middle gutter has {Inked(2)} inked cells with the partner T-6, {before} without");
     }
 
-    // Leave-one-out by hand: without a-2, a-1 (10 -> 12) and a-3 (100 -> 110) put 50 cm of T-1 at
+    // Leave-one-out worked by hand (the standard two-point linear interpolation formula): without a-2, a-1 (10 -> 12) and a-3 (100 -> 110) put 50 cm of T-1 at
     // 12 + (50 - 10) x (110 - 12) / (100 - 10) = 55.556 cm of T-6; a-2 says 60, a misfit of +4.444 cm = 2.22 x its 2 cm.
     [Fact]
     public void The_detail_line_gives_depths_uncertainty_and_the_leave_one_out_misfit()
