@@ -145,31 +145,30 @@ public sealed class NewCommandTests : IDisposable
     }
 
     [Fact]
-    public void A_table_without_a_depth_like_column_is_refused_naming_the_file_and_nothing_is_written()
-    {
-        string folder = Path.Combine(_dir, "nodepth");
-        Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "A.csv"), "depth,ms\n0,1\n1,2\n2,3\n");
-        File.WriteAllText(Path.Combine(folder, "B.csv"), "position,ms\n0,1\n1,2\n");
-        var (code, _, err) = CliRunner.Run("new", folder, "--yes");
-        Assert.Equal(2, code);
-        Assert.Contains("B.csv", err);
-        Assert.Contains("no column named like a depth", err);
-        Assert.Equal(["A.csv", "B.csv"], Directory.GetFiles(folder).Select(Path.GetFileName).Order());
-    }
+    public void A_table_without_a_depth_like_column_is_refused_naming_the_file_and_nothing_is_written() =>
+        AssertRefusedLeavingOnlyTheTables(TwoTables("nodepth", "depth,ms\n0,1\n1,2\n2,3\n", "position,ms\n0,1\n1,2\n"),
+            "B.csv", "no column named like a depth");
 
     [Fact]
-    public void Two_tables_with_no_common_signal_are_refused_listing_their_signals_and_nothing_is_written()
+    public void Two_tables_with_no_common_signal_are_refused_listing_their_signals_and_nothing_is_written() =>
+        AssertRefusedLeavingOnlyTheTables(TwoTables("nocommon", "depth,ms\n0,1\n1,2\n2,3\n", "depth,density\n0,1.1\n1,1.2\n"),
+            "share no signal", "A.csv has ms", "B.csv has density");
+
+    /// <summary>A folder holding A.csv and B.csv with the given texts.</summary>
+    private string TwoTables(string name, string a, string b)
     {
-        string folder = Path.Combine(_dir, "nocommon");
+        string folder = Path.Combine(_dir, name);
         Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "A.csv"), "depth,ms\n0,1\n1,2\n2,3\n");
-        File.WriteAllText(Path.Combine(folder, "B.csv"), "depth,density\n0,1.1\n1,1.2\n");
+        File.WriteAllText(Path.Combine(folder, "A.csv"), a);
+        File.WriteAllText(Path.Combine(folder, "B.csv"), b);
+        return folder;
+    }
+
+    private static void AssertRefusedLeavingOnlyTheTables(string folder, params string[] messages)
+    {
         var (code, _, err) = CliRunner.Run("new", folder, "--yes");
         Assert.Equal(2, code);
-        Assert.Contains("share no signal", err);
-        Assert.Contains("A.csv has ms", err);
-        Assert.Contains("B.csv has density", err);
+        foreach (string m in messages) Assert.Contains(m, err);
         Assert.Equal(["A.csv", "B.csv"], Directory.GetFiles(folder).Select(Path.GetFileName).Order());
     }
 
