@@ -67,13 +67,23 @@ internal static class AgeChecks
             }
     }
 
-    /// <summary>A calendar-scale level whose ±2 sigma interval misses the age model's 95 % range at its composite depth.</summary>
+    /// <summary>
+    /// A calendar-scale level whose ±2 sigma interval misses the age model's 95 % range at its composite
+    /// depth. The level's place on the composite scale is itself uncertain by its alignment band, so the
+    /// range compared is the age model's from the 95 % range's young end at the band's top to its old end
+    /// at the band's base; otherwise an exactly dated top (a varve count's year of coring) would be
+    /// flagged by the width of one alignment step.
+    /// </summary>
     private static void OffModel(CheckReporter r, List<DatedLevel> levels, AlignmentResult alignment, CheckContext ctx)
     {
         foreach (var l in levels.Where(l => l.IsCalendar && alignment.Mappings.ContainsKey(l.Core)))
         {
-            double composite = alignment.Mappings[l.Core].Median.ToCompositeValue(l.Depth);
-            var (median, lo, hi) = ctx.AgeScale!.AgeAt(CompositeDepth.From(composite, r.Unit));
+            var mapping = alignment.Mappings[l.Core];
+            var (top, bottom) = mapping.CompositeRange(l.Depth);
+            double composite = mapping.Median.ToCompositeValue(l.Depth);
+            var (median, _, _) = ctx.AgeScale!.AgeAt(CompositeDepth.From(composite, r.Unit));
+            double lo = ctx.AgeScale.AgeAt(CompositeDepth.From(Math.Min(top, composite), r.Unit)).LoBP;
+            double hi = ctx.AgeScale.AgeAt(CompositeDepth.From(Math.Max(bottom, composite), r.Unit)).HiBP;
             if (l.Age + 2 * l.Sigma >= lo && l.Age - 2 * l.Sigma <= hi) continue;
             r.Add(Severity.Warning, CheckCodes.AgeOffModel,
                 $"Age control {l.Control.Id} ({l.Describe()}) at {r.Depth(l.Depth)} in core {l.Core} lies outside the age model there ({CheckReporter.Number(median, "0")} cal BP, 95 % range {CheckReporter.Number(lo, "0")} to {CheckReporter.Number(hi, "0")}); the other controls outvote it. Check it, or set 'exclude: true' on it.",

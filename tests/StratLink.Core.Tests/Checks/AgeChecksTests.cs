@@ -216,6 +216,20 @@ public sealed class AgeChecksTests : IDisposable
         Assert.Equal(("odd", Severity.Warning), (f.Item, f.Severity));
     }
 
+    [Fact]
+    public void A_control_is_compared_over_its_alignment_band_on_the_composite_scale()
+    {
+        // B at 50 cm maps to composite 50 cm, its band 45-55 cm: the model's 95 % range there is
+        // 430-570 yr (10 yr/cm, +-20 yr). 550 +- 1 yr misses the range at the median alone (480-520)
+        // but not over the band; 700 +- 1 yr misses both.
+        var p = Project(["B"], ages: [Calendar("near", "B", 50, 550, 1), Calendar("far", "B", 60, 700, 1)]);
+        DepthMapping Shifted(double by) => new("B", Unit, [0, 100], [by, 100 + by]);
+        var members = Enumerable.Range(0, 41).Select(k => Shifted(-5 + 0.25 * k)).ToList();
+        var alignment = new AlignmentResult("B", "test", new Dictionary<string, MappingEnsemble> { ["B"] = new(Shifted(0), members) });
+        var found = Run(Load(p), new CheckContext { AgeScale = new TenYearsPerCm() }, alignment).Where(f => f.Code == CheckCodes.AgeOffModel).ToList();
+        Assert.Equal(["far"], found.Select(f => f.Item));
+    }
+
     /// <summary>Writes a file in the folder of the test project file and returns its absolute path.</summary>
     private string WriteBesideProject(string name, string text)
     {
