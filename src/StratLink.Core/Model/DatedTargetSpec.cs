@@ -3,8 +3,9 @@ using System.Collections.Immutable;
 namespace StratLink.Model;
 
 /// <summary>
-/// A dated record (a stack, or a master core given as signal against age) that cores are aligned to,
-/// their transferred ages joining the project's age controls (project file section <c>target</c>).
+/// A dated record that cores are aligned to, their transferred ages joining the project's age controls
+/// (project file section <c>target</c>): a stack or a master core given as signal against age, or a
+/// master core given as signal against depth with its own age model (<see cref="AgeModel"/>).
 /// </summary>
 public sealed record DatedTargetSpec
 {
@@ -14,7 +15,16 @@ public sealed record DatedTargetSpec
     /// <summary>Column of ages, ascending; read in <see cref="AgeUnit"/>.</summary>
     public string AgeColumn { get; init; } = "age";
 
-    /// <summary><c>yr</c> or <c>ka</c>, both cal BP.</summary>
+    /// <summary>Column of depths when the table is signal against depth (then <see cref="AgeModel"/> dates it); null: the table is on age.</summary>
+    public string? DepthColumn { get; init; }
+
+    /// <summary>The master core's age model, depth to age, when the table is on depth.</summary>
+    public DatedTargetAgeModel? AgeModel { get; init; }
+
+    /// <summary>What to do with rows that repeat the table's depth or age (replicate analyses), as for cores.</summary>
+    public RepeatedDepths RepeatedDepths { get; init; } = RepeatedDepths.Error;
+
+    /// <summary><c>yr</c>, <c>ka</c> or <c>Ma</c>, all cal BP; the unit of the target's ages and of its age model's.</summary>
     public string AgeUnit { get; init; } = DatedTargetAgeUnits.Years;
 
     /// <summary>The signal shared by the cores and the target (the cores' signal name).</summary>
@@ -47,12 +57,29 @@ public sealed record DatedTargetSpec
     public const int DefaultControlsPerCore = 50;
 
     /// <summary>Years per unit of <see cref="AgeUnit"/>.</summary>
-    public double YearsPerUnit => AgeUnit == DatedTargetAgeUnits.Kiloyears ? 1000 : 1;
+    public double YearsPerUnit => AgeUnit switch { DatedTargetAgeUnits.Kiloyears => 1e3, DatedTargetAgeUnits.Megayears => 1e6, _ => 1 };
+}
+
+/// <summary>
+/// A dated master core's own age model: a table of depths (in the unit of the target's table) and ages
+/// in the target's age unit, ages increasing with depth; linear between its rows.
+/// </summary>
+public sealed record DatedTargetAgeModel
+{
+    public required string Table { get; init; }
+    public string DepthColumn { get; init; } = "depth";
+    public string AgeColumn { get; init; } = "age";
+
+    /// <summary>Column of the ages' 1-sigma error, in the target's age unit.</summary>
+    public string? ErrorColumn { get; init; }
+
+    public int? HeaderLine { get; init; }
 }
 
 public static class DatedTargetAgeUnits
 {
     public const string Years = "yr";
     public const string Kiloyears = "ka";
-    public static readonly IReadOnlyList<string> All = [Years, Kiloyears];
+    public const string Megayears = "Ma";
+    public static readonly IReadOnlyList<string> All = [Years, Kiloyears, Megayears];
 }

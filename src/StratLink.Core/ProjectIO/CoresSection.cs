@@ -68,7 +68,7 @@ internal static class CoresSection
         return core;
     }
 
-    private static RepeatedDepths ReadRepeatedDepths(YamlMap m)
+    internal static RepeatedDepths ReadRepeatedDepths(YamlMap m)
     {
         string? text = m.String("repeated_depths");
         if (text is null) return RepeatedDepths.Error;

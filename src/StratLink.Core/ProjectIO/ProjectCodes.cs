@@ -40,4 +40,6 @@ public static class ProjectCodes
     public const string TableSectionsIgnored = "table.sections-ignored";
     public const string TableEmpty = "table.empty";
     public const string TableRepeatsCombined = "table.repeats-combined";
+    public const string TableAgeOrder = "table.age-order";
+    public const string TableBeyondAgeModel = "table.beyond-age-model";
 }

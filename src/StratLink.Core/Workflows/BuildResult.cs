@@ -25,7 +25,7 @@ public sealed record BuildResult(
                 ["composite"] = Composite.MethodSummary,
             };
             if (Project.Project.Target is { } t)
-                methods["target"] = $"dtw of {string.Join(", ", Project.Project.TargetCoreIds)} to {t.Table} by {t.Signal} (ensemble seed {TargetAgeControls.Seed(Project.Project)} with each core's id); "
+                methods["target"] = $"dtw of {string.Join(", ", Project.Project.TargetCoreIds)} to {t.Table}{(t.AgeModel is { } am ? $" (on depth, dated by its age model {am.Table})" : "")} by {t.Signal} (ensemble seed {TargetAgeControls.Seed(Project.Project)} with each core's id); "
                     + $"transferred ages as age controls {TargetAgeControls.IdPrefix}CORE:DEPTH";
             return methods;
         }

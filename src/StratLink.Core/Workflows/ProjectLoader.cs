@@ -48,21 +48,25 @@ public static class ProjectLoader
         }
 
         string? targetFile = project.Target is { Table.Length: > 0 } ts ? paths.Check(ts.Table, "target.table", "target table") : null;
+        string? targetAgeFile = project.Target?.AgeModel is { Table.Length: > 0 } tam ? paths.Check(tam.Table, "target.age_model.table", "target age model table") : null;
 
         var tables = ReadTables(project, tableFiles, problems, ct);
         var checks = new TableChecks(project, tables, doc.Lines, problems);
         checks.DepthsInsideCores();
         checks.SignalsPresent();
         checks.EventLayers();
-        var target = targetFile is null ? null : ReadTarget(targetFile, project, tables, doc.Lines, problems, ct);
+        var target = targetFile is null || (project.Target!.AgeModel is not null && targetAgeFile is null) ? null
+            : ReadTarget(targetFile, targetAgeFile, project, tables, doc.Lines, problems, ct);
         return new LoadedProject(doc, project, tables, problems) { Target = target };
     }
 
     /// <summary>
-    /// The target's table read like a core's (its age column in place of depth), cut to its age span, in years;
-    /// null with an error naming the <c>target</c> key when it is unusable.
+    /// The target's table read like a core's (its age column in place of depth; or, for a target on depth, its
+    /// depths dated by its age model), cut to its age span, in years; null with an error naming the <c>target</c>
+    /// key when it is unusable.
     /// </summary>
-    private static DatedTargetRecord? ReadTarget(string file, Project project, IReadOnlyDictionary<string, CoreTable> tables, SourceMap lines, FindingList problems, CancellationToken ct)
+    private static DatedTargetRecord? ReadTarget(string file, string? ageModelFile, Project project, IReadOnlyDictionary<string, CoreTable> tables, SourceMap lines,
+        FindingList problems, CancellationToken ct)
     {
         var spec = project.Target!;
         void Error(string key, string code, string message) => problems.AddError(code, message, lines.File, lines.LineOf("target." + key) ?? lines.LineOf("target"), "target." + key);
@@ -75,9 +79,10 @@ public static class ProjectLoader
         {
             Id = "target",
             Table = spec.Table,
-            DepthColumn = spec.AgeColumn,
+            DepthColumn = spec.DepthColumn ?? spec.AgeColumn,
             HeaderLine = spec.HeaderLine,
             Columns = spec.Columns,
+            RepeatedDepths = spec.RepeatedDepths,
         };
         CoreTable? table;
         try
@@ -101,16 +106,24 @@ public static class ProjectLoader
             Error("age_error_column", ProjectCodes.TableMissingColumn, $"the target table has no numeric column '{errorColumn}'; it has: {string.Join(", ", table.SignalNames)}");
             return null;
         }
+        double[] ages = table.Depths;
+        if (spec.AgeModel is { } model)
+        {
+            var dated = MasterCoreAges.Read(ageModelFile!, model, table, project.DepthUnit, lines, problems, ct);
+            if (dated is null) return null;
+            (ages, var modelErrors) = dated.Value;
+            errors ??= modelErrors;
+        }
         double young = spec.AgeSpan?.Young ?? double.NegativeInfinity, old = spec.AgeSpan?.Old ?? double.PositiveInfinity;
         var keep = Enumerable.Range(0, table.Count)
-            .Where(i => table.Depths[i] >= young && table.Depths[i] <= old && double.IsFinite(values[i]) && (errors is null || double.IsFinite(errors[i]))).ToArray();
+            .Where(i => ages[i] >= young && ages[i] <= old && double.IsFinite(values[i]) && (errors is null || double.IsFinite(errors[i]))).ToArray();
         if (keep.Length < 2)
         {
             Error(spec.AgeSpan is null ? "table" : "age_span", ProjectCodes.TableEmpty, $"the target has {keep.Length} row(s) with an age and a value of '{spec.Signal}'{(spec.AgeSpan is null ? "" : " inside its age span")}; aligning {coresText} to it needs at least two");
             return null;
         }
         double scale = spec.YearsPerUnit;
-        return new DatedTargetRecord(keep.Select(i => table.Depths[i] * scale).ToArray(), keep.Select(i => values[i]).ToArray(),
+        return new DatedTargetRecord(keep.Select(i => ages[i] * scale).ToArray(), keep.Select(i => values[i]).ToArray(),
             errors is null ? null : keep.Select(i => errors[i] * scale).ToArray());
     }
 

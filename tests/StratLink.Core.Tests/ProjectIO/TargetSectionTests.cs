@@ -40,9 +40,9 @@ public sealed class TargetSectionTests : IDisposable
     [Fact]
     public void Bad_age_unit_names_its_line_and_key()
     {
-        var f = Assert.Single(Parse("  table: stack.txt\n  signal: d18o\n  age_unit: Ma\n").Problems);
+        var f = Assert.Single(Parse("  table: stack.txt\n  signal: d18o\n  age_unit: Myr\n").Problems);
         Assert.Equal((ProjectCodes.InvalidValue, "p.yaml", 9, "target.age_unit"), (f.Code, f.File, f.Line, f.Field));
-        Assert.Contains("'Ma'", f.Message);
+        Assert.Contains("'Myr'", f.Message);
     }
 
     [Fact]
@@ -102,5 +102,58 @@ public sealed class TargetSectionTests : IDisposable
         Assert.Equal([3.2, 3.3, 3.4], t.Values);
         Assert.Equal(2500, t.ErrorAt(1500), 9);
         Assert.Equal(4000, t.ErrorAt(9000), 9);
+    }
+
+    [Fact]
+    public void A_target_on_depth_with_its_age_model_round_trips()
+    {
+        var doc = Parse("  table: master.csv\n  depth_column: mcd\n  repeated_depths: mean\n  signal: d18o\n  age_unit: Ma\n"
+            + "  age_model:\n    table: master-ages.txt\n    depth_column: mcd\n    age_column: age_ma\n    error_column: err\n    header_line: 2\n");
+        Assert.Empty(doc.Problems);
+        var t = doc.Project!.Target!;
+        Assert.Equal(("mcd", RepeatedDepths.Mean, 1e6), (t.DepthColumn, t.RepeatedDepths, t.YearsPerUnit));
+        Assert.Equal(new DatedTargetAgeModel { Table = "master-ages.txt", DepthColumn = "mcd", AgeColumn = "age_ma", ErrorColumn = "err", HeaderLine = 2 }, t.AgeModel);
+        var again = ProjectReader.Parse(ProjectWriter.ToYaml(doc.Project), "p.yaml");
+        Assert.Empty(again.Problems);
+        Assert.Equal(t with { Columns = [], Cores = [] }, again.Project!.Target! with { Columns = [], Cores = [] });
+    }
+
+    [Theory]
+    [InlineData("  depth_column: mcd\n", 9, "target.depth_column", "needs its age model")]
+    [InlineData("  age_model: {table: ages.txt}\n", 9, "target.age_model", "depth_column")]
+    [InlineData("  depth_column: mcd\n  age_column: age\n  age_model: {table: ages.txt}\n", 10, "target.age_column", "age_model")]
+    [InlineData("  depth_column: mcd\n  age_error: 5\n  age_model: {table: ages.txt, error_column: e}\n", 10, "target.age_error", "once")]
+    public void Contradicting_keys_of_a_target_on_depth_name_their_line_and_key(string keys, int line, string field, string says)
+    {
+        var f = Assert.Single(Parse("  table: master.csv\n  signal: d18o\n" + keys).Problems);
+        Assert.Equal((ProjectCodes.InvalidValue, line, field), (f.Code, f.Line, f.Field));
+        Assert.Contains(says, f.Message);
+    }
+
+    [Fact]
+    public void A_target_on_depth_is_dated_by_its_age_model_linearly_and_not_beyond_it()
+    {
+        // Age model 10 m -> 1 ka, 30 m -> 5 ka: 200 yr per m between them; rows at 0 and 40 m lie outside.
+        File.WriteAllText(Path.Combine(_dir, "ages.txt"), "depth age err\n10 1 0.1\n30 5 0.5\n");
+        var loaded = ProjectLoader.Load(WriteProject("  table: stack.txt\n  depth_column: depth\n  signal: d18o\n  age_unit: ka\n  age_model: {table: ages.txt, error_column: err}\n",
+            "depth,d18o\n0,3.0\n10,3.1\n15,3.2\n30,3.3\n40,3.4\n"));
+        Assert.False(loaded.Problems.HasErrors, string.Join("\n", loaded.Problems.Select(f => f.Message)));
+        var t = loaded.Target!;
+        Assert.Equal([1000.0, 2000, 5000], t.AgesBP);
+        Assert.Equal([3.1, 3.2, 3.3], t.Values);
+        Assert.Equal(200, t.ErrorAt(2000), 9);
+        var note = Assert.Single(loaded.Problems, f => f.Code == ProjectCodes.TableBeyondAgeModel);
+        Assert.Contains("2 of the target's 5 rows", note.Message);
+    }
+
+    [Fact]
+    public void An_age_model_whose_ages_do_not_increase_names_its_file_line_and_column()
+    {
+        File.WriteAllText(Path.Combine(_dir, "ages.txt"), "depth age\n10 1\n20 3\n30 2\n");
+        var problems = Load("  table: stack.txt\n  depth_column: depth\n  signal: d18o\n  age_model: {table: ages.txt}\n", "depth,d18o\n10,3.1\n30,3.3\n");
+        var f = Assert.Single(problems, f => f.Severity == Severity.Error);
+        Assert.Equal((ProjectCodes.TableAgeOrder, 4, "age"), (f.Code, f.Line, f.Field));
+        Assert.EndsWith("ages.txt", f.File);
+        Assert.Contains("age 2 at depth 30 is not older than 3 at 20", f.Message);
     }
 }

@@ -9,11 +9,14 @@ using Xunit.Abstractions;
 namespace StratLink.Tests.Workflows;
 
 /// <summary>
-/// A project that dates its core by a dated target, built through the build workflow: benthic d18O of ODP
+/// Projects that date their core by a dated target, built through the build workflow. First, benthic d18O of ODP
 /// Site 849 (Mix et al. 1995, Proc. ODP Sci. Results 138:371-412; the NOAA table as published) dated by the
 /// LR04 benthic stack (Lisiecki and Raymo 2005, Paleoceanography 20, PA1003; ages in ka), and the age model's
 /// ages of the core's samples compared with the authors' own orbitally tuned age of every sample (the yrBP
-/// column of the same table: an independent tuning, so the two differ by a few kyr at best).
+/// column of the same table: an independent tuning, so the two differ by a few kyr at best). Second, a dated
+/// master core on depth: ODP 925's benthic d18O on composite depth with the authors' age model dating it, and
+/// ODP 927 dated by alignment to it (Bickert, Curry and Wefer 1997, Proc. ODP Sci. Results 154:239-254, both
+/// sites), compared with the authors' own age model of 927.
 /// </summary>
 public sealed class DatedTargetBuildTests(ITestOutputHelper output) : IDisposable
 {
@@ -98,5 +101,85 @@ public sealed class DatedTargetBuildTests(ITestOutputHelper output) : IDisposabl
         Assert.True(rms <= 0.5 * straight, $"RMS {rms:0.0} kyr is not at most half the constant-rate {straight:0.0} kyr");
         Assert.True(rms <= 20.5, $"RMS {rms:0.0} kyr exceeds half an obliquity cycle");
         Assert.True(coverage >= 0.80, $"95% range holds the published age at only {coverage:P1}");
+    }
+
+    [Fact]
+    public void Odp927_dated_by_ODP925_on_depth_with_its_age_model_agrees_with_927s_published_age_model()
+    {
+        // Both tables as published: free-text preambles, blank-separated, replicate species at one depth
+        // (their mean); the age models are "mcd age" pairs in Ma. 925's model starts at 0.98 mcd, so its top
+        // metre is left out (not extrapolated). Its age error: 5 kyr, a typical orbital-tuning uncertainty (common practice).
+        string ceara(string f) => Quoted(RepoPaths.Data("ceara-rise", f));
+        string yaml = $"""
+            format: stratlink-project/1
+            depth_unit: m
+            cores:
+              - id: ODP927
+                table: {ceara("ODP927_d18O_Bickert1997.txt")}
+                depth_column: mcd
+                repeated_depths: mean
+                signals: [d18O]
+            alignment:
+              window: 0.1
+              ensemble: 40
+            age_model:
+              iterations: 200
+              seed: 11
+            target:
+              table: {ceara("ODP925_d18O_Bickert1997.txt")}
+              depth_column: mcd
+              repeated_depths: mean
+              signal: d18O
+              age_unit: Ma
+              age_model:
+                table: {ceara("ODP925_agemodel_Bickert1997.txt")}
+                depth_column: mcd
+              age_error: 5000
+            """;
+        string file = Path.Combine(_dir, "odp927.stratlink.yaml");
+        File.WriteAllText(file, yaml);
+        var loaded = ProjectLoader.Load(file);
+        Assert.False(loaded.Problems.HasErrors, string.Join("\n", loaded.Problems.Select(f => $"{f.Line} {f.Field}: {f.Message}")));
+        Assert.Contains(loaded.Problems, f => f.Code == StratLink.ProjectIO.ProjectCodes.TableBeyondAgeModel);
+        // The target's first dated row: 1.01 mcd, between the model's 0.98 mcd (0.021 Ma) and 1.93 mcd (0.043 Ma).
+        Assert.Equal(21_000 + 22_000 * (1.01 - 0.98) / (1.93 - 0.98), loaded.Target!.AgesBP[0], 6);
+
+        var build = BuildWorkflow.Run(loaded, null, CancellationToken.None);
+        Assert.True(build.Ages.IsBuilt, string.Join("\n", build.Findings.Select(f => f.Message)));
+        Assert.Contains("dated by its age model", build.Methods["target"]);
+
+        // 927's published age model, linear between its rows (a few rows repeat a depth; the first is kept).
+        var model = new SortedDictionary<double, double>();
+        foreach (string line in File.ReadLines(RepoPaths.Data("ceara-rise", "ODP927_agemodel_Bickert1997.txt")))
+        {
+            var f = line.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
+            if (f.Length >= 2 && double.TryParse(f[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double z) && double.TryParse(f[1], NumberStyles.Float, CultureInfo.InvariantCulture, out double a))
+                model.TryAdd(z, a * 1000); // kyr
+        }
+        double[] mz = [.. model.Keys], ma = [.. model.Values];
+        var published = MathNet.Numerics.Interpolation.LinearSpline.InterpolateSorted(mz, ma);
+        var table = loaded.Tables["ODP927"];
+        var ages = build.Ages.Cores["ODP927"];
+        double sq = 0, sqStraight = 0;
+        int inside = 0, n = 0;
+        double a0 = published.Interpolate(table.Depths[0]), a1 = published.Interpolate(table.Depths[^1]);
+        for (int k = 0; k < ages.Count; k++)
+        {
+            double z = table.Depths[k], truth = published.Interpolate(z);
+            double e = ages.AgeMedianBP[k] / 1000 - truth;
+            sq += e * e;
+            double straight = a0 + (a1 - a0) * (z - table.Depths[0]) / (table.Depths[^1] - table.Depths[0]) - truth;
+            sqStraight += straight * straight;
+            if (truth >= ages.AgeLoBP[k] / 1000 && truth <= ages.AgeHiBP[k] / 1000) inside++;
+            n++;
+        }
+        double rms = Math.Sqrt(sq / n), rmsStraight = Math.Sqrt(sqStraight / n), coverage = (double)inside / n;
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"ODP 927 dated by ODP 925 on depth with its age model, through the build: RMS {rms:0.0} kyr against 927's published age model (constant rate between the published end ages: {rmsStraight:0.0} kyr); 95% range holds it at {coverage:P1} of {n} samples"));
+        // Bounds as for ODP 849 above: at least half the constant-rate error, within half an obliquity cycle (common practice).
+        Assert.True(rms <= 0.5 * rmsStraight, $"RMS {rms:0.0} kyr is not at most half the constant-rate {rmsStraight:0.0} kyr");
+        Assert.True(rms <= 20.5, $"RMS {rms:0.0} kyr exceeds half an obliquity cycle");
+        // A 95 % range with a margin for 200 members and a published model that is itself uncertain.
+        Assert.True(coverage >= 0.90, $"95% range holds 927's published age at only {coverage:P1}");
     }
 }
