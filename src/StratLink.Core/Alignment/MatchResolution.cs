@@ -74,35 +74,56 @@ internal sealed class MatchResolution
     public DepthMapping Spread(DepthMapping member, Random rng)
     {
         double u = rng.NextDouble() - 0.5;
-        var x = new List<double>(member.CoreKnots);
+        var kx = member.CoreKnots;
+        var ky = member.CompositeKnots;
         // Knots where the resolution changes, and where the fade around a tie starts, ends and
         // bottoms out, so the shift is exact there (a member's own knots are only where its rate changes).
-        x.AddRange(_coreChanges);
-        double top = member.CompositeKnots[0], bottom = member.CompositeKnots[^1];
+        var extra = new List<double>(_coreChanges);
+        double top = ky[0], bottom = ky[^1];
         foreach (double c in _referenceChanges)
-            if (c > top && c < bottom) x.Add(member.ToCoreValue(c));
+            if (c > top && c < bottom) extra.Add(member.ToCoreValue(c));
         foreach (double t in _ties)
         {
             double ratio = Math.Max(1e-9, member.RateRatioAt(t));
             double reach = At(t, member.ToCompositeValue(t), ratio) / ratio;
-            x.AddRange([t - reach, t, t + reach]);
+            extra.AddRange([t - reach, t, t + reach]);
         }
-        x = x.Where(v => v >= member.CoreKnots[0] && v <= member.CoreKnots[^1]).Distinct().Order().ToList();
-        var y = new double[x.Count];
-        for (int k = 0; k < y.Length; k++)
+        extra.Sort();
+        // Without extra knots the member's own core knots are kept (a mapping's knots are never changed).
+        bool own = extra.Count == 0 && kx is double[];
+        var x = own ? (double[])kx : new double[kx.Count + extra.Count];
+        var y = new double[x.Length];
+        int count = 0, e = 0, tie = 0;
+        for (int k = 0; k < kx.Count; k++)
         {
-            double z = x[k], c = member.ToCompositeValue(z), ratio = member.RateRatioAt(z), r = At(z, c, ratio);
-            double fade = _ties.Length == 0 ? 1 : Math.Min(1, NearestTie(z) * ratio / r);
-            y[k] = c + u * r * fade;
-            if (k > 0 && y[k] < y[k - 1]) y[k] = y[k - 1];
+            // The segment from knot k to k + 1 (the last knot takes the one before it) gives the rate ratio.
+            int s = k < kx.Count - 1 ? k : Math.Max(0, k - 1);
+            double dx = s + 1 < kx.Count ? kx[s + 1] - kx[s] : 0, ratio = dx > 0 ? (ky[s + 1] - ky[s]) / dx : 1;
+            Add(kx[k], ky[k], ratio);
+            if (k == kx.Count - 1) break;
+            while (e < extra.Count && extra[e] <= kx[k]) e++;
+            for (; e < extra.Count && extra[e] < kx[k + 1]; e++)
+                if (extra[e] > x[count - 1]) Add(extra[e], ky[k] + ratio * (extra[e] - kx[k]), ratio);
         }
-        return new DepthMapping(member.CoreId, member.Unit, [.. x], y);
-    }
+        if (count < x.Length)
+        {
+            Array.Resize(ref x, count);
+            Array.Resize(ref y, count);
+        }
+        return new DepthMapping(member.CoreId, member.Unit, x, y);
 
-    private double NearestTie(double coreDepth)
-    {
-        double d = double.PositiveInfinity;
-        foreach (double t in _ties) d = Math.Min(d, Math.Abs(coreDepth - t));
-        return d;
+        void Add(double z, double c, double ratio)
+        {
+            double r = At(z, c, ratio), fade = 1;
+            if (_ties.Length > 0)
+            {
+                while (tie + 1 < _ties.Length && Math.Abs(_ties[tie + 1] - z) <= Math.Abs(_ties[tie] - z)) tie++;
+                fade = Math.Min(1, Math.Abs(z - _ties[tie]) * ratio / r);
+            }
+            double v = c + u * r * fade;
+            if (count > 0 && v < y[count - 1]) v = y[count - 1];
+            x[count] = z;
+            y[count++] = v;
+        }
     }
 }
