@@ -23,6 +23,8 @@ namespace StratLink.Alignment;
 /// (signals are smooth and oversampled), so T0 is multiplied by the integrated autocorrelation time
 /// tau = 1 + 2 sum_k rho_k of the residual series (sum stopped at the first non-positive rho_k,
 /// Geyer's initial positive sequence), which counts each independent piece of evidence once.
+/// Each sampled path is then read no more finely than its cells and the records' sampling resolve
+/// (<see cref="MatchResolution"/>).
 /// </para>
 /// </summary>
 public static class DtwCoreAligner
@@ -35,10 +37,12 @@ public static class DtwCoreAligner
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
         var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit);
+        var unpadded = reference;
         int recorded0 = overhang.Top, recorded1 = overhang.Top + reference.Count - 1;
         if (overhang.Any) reference = overhang.Pad(reference);
         int n = core.Count, m = reference.Count;
         var boxes = TieBoxes(core, reference, ties, findings);
+        var resolution = new MatchResolution(core, unpadded, boxes.Select(b => core.DepthAt(b.I)));
         options = ResolveOpenEnds(options, boxes, n, m, unit);
         var centre = CentreLine(boxes, n, m, options, unit);
         (core, reference) = StandardiseOverOverlap(core, reference, centre, recorded0, recorded1, options.RobustStandardise);
@@ -141,7 +145,7 @@ public static class DtwCoreAligner
         Parallel.For(0, members.Length, parallel, e =>
         {
             var (mi, mj) = Join(pieces.Select(p => p[e]).ToArray());
-            members[e] = ToMapping(core, reference, cost, unit, mi, mj, forced);
+            members[e] = resolution.Spread(ToMapping(core, reference, cost, unit, mi, mj, forced), new Random(Seeds.Derive(options.Seed, core.CoreId + "/cell", e)));
             if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
         return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);

@@ -6,9 +6,11 @@ namespace StratLink.Alignment;
 /// </summary>
 public sealed class PreparedSignals
 {
-    public PreparedSignals(string coreId, double top, double step, int count, string[] signals, double[] values)
+    public PreparedSignals(string coreId, double top, double step, int count, string[] signals, double[] values, double[]? sampleSpacing = null)
     {
         if (values.Length != count * signals.Length) throw new ArgumentException("Values do not fill count x signals.");
+        if (sampleSpacing is not null && sampleSpacing.Length != count) throw new ArgumentException("Sample spacing needs one value per row.");
+        SampleSpacing = sampleSpacing;
         CoreId = coreId;
         Top = top;
         Step = step;
@@ -27,6 +29,13 @@ public sealed class PreparedSignals
     public string[] Signals { get; }
     public double[] Values { get; }
 
+    /// <summary>
+    /// Per row, the spacing of the measured samples the row was read from (the pair around it, the
+    /// coarser over the signals); null where not known. A record sampled more coarsely than the grid
+    /// is interpolated onto it, and cannot place a match more finely than its own spacing.
+    /// </summary>
+    public double[]? SampleSpacing { get; }
+
     public double DepthAt(int row) => Top + row * Step;
 
     /// <summary>Grid row nearest to a depth (not clamped).</summary>
@@ -43,6 +52,6 @@ public sealed class PreparedSignals
             int src = Array.IndexOf(Signals, names[k]);
             for (int r = 0; r < Count; r++) v[r * names.Count + k] = src < 0 ? double.NaN : Values[r * Signals.Length + src];
         }
-        return new PreparedSignals(CoreId, Top, Step, Count, [.. names], v);
+        return new PreparedSignals(CoreId, Top, Step, Count, [.. names], v, SampleSpacing);
     }
 }

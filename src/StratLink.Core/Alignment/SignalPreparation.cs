@@ -11,8 +11,14 @@ namespace StratLink.Alignment;
 /// </summary>
 public static class SignalPreparation
 {
-    /// <summary>Samples further apart than this many grid steps (or median spacings) are a hole, not interpolated.</summary>
-    private const double MaxBridge = 4;
+    /// <summary>
+    /// Samples further apart than this many grid steps (or median spacings) are a hole, not
+    /// interpolated: one missing sample is bridged, a longer run is not. Values interpolated across a
+    /// hole are not measurements, yet the path would match them as evidence (a straight ramp fits a
+    /// stretch of almost anything); left missing, the hole costs the neutral level and the path crosses
+    /// it at the local mean rate. The same rule as the stacks' (<c>CompositeCore.BridgeSpacings</c>).
+    /// </summary>
+    private const double MaxBridge = 2.5;
 
     public static double MedianSpacing(double[] depths)
     {
@@ -34,16 +40,18 @@ public static class SignalPreparation
         int dims = signals.Count;
         var values = new double[count * dims];
         var column = new double[count];
+        var spacing = new double[count];
         for (int k = 0; k < dims; k++)
         {
             if (!table.Signals.TryGetValue(signals[k], out var raw)) Array.Fill(column, double.NaN);
-            else Resample(table.Depths, raw, intervals, top, step, bridge, column);
+            else Resample(table.Depths, raw, intervals, top, step, bridge, column, spacing);
             if (settings.Detrend) Detrend(column);
             if (settings.Derivative) column = Derivative(column);
             Standardise(column, settings.Standardise == StandardiseMethods.Robust);
             for (int r = 0; r < count; r++) values[r * dims + k] = column[r];
         }
-        return new PreparedSignals(table.CoreId, top, step, count, [.. signals], values);
+        for (int r = 0; r < count; r++) spacing[r] = Math.Max(spacing[r], step);
+        return new PreparedSignals(table.CoreId, top, step, count, [.. signals], values, spacing);
     }
 
     private static bool Unusable((double Top, double Bottom)[] intervals, double depth)
@@ -58,7 +66,8 @@ public static class SignalPreparation
         return false;
     }
 
-    private static void Resample(double[] depths, double[] raw, (double Top, double Bottom)[] intervals, double top, double step, double bridge, double[] column)
+    /// <param name="spacing">Raised, per row, to the spacing of the samples the row is read from.</param>
+    private static void Resample(double[] depths, double[] raw, (double Top, double Bottom)[] intervals, double top, double step, double bridge, double[] column, double[] spacing)
     {
         var valid = new List<int>(depths.Length);
         for (int i = 0; i < depths.Length; i++)
@@ -71,12 +80,20 @@ public static class SignalPreparation
             if (valid.Count == 0 || Unusable(intervals, z)) continue;
             while (p + 1 < valid.Count && depths[valid[p + 1]] <= z) p++;
             int a = valid[p];
-            if (depths[a] == z) { column[r] = raw[a]; continue; }
+            if (depths[a] == z)
+            {
+                column[r] = raw[a];
+                // A sample on the row stands for the half-spacings to its neighbours on either side.
+                double below = p + 1 < valid.Count ? depths[valid[p + 1]] - z : 0, above = p > 0 ? z - depths[valid[p - 1]] : 0;
+                spacing[r] = Math.Max(spacing[r], Math.Min(bridge, 0.5 * (above + below)));
+                continue;
+            }
             if (depths[a] > z || p + 1 >= valid.Count) continue;
             int b = valid[p + 1];
             double za = depths[a], zb = depths[b];
             if (zb - za > bridge || Crosses(intervals, za, zb)) continue;
             column[r] = raw[a] + (raw[b] - raw[a]) * (z - za) / (zb - za);
+            spacing[r] = Math.Max(spacing[r], zb - za);
         }
     }
 
@@ -134,7 +151,7 @@ public static class SignalPreparation
             var (centre, scale) = Scaling(window.ToArray(), robust);
             for (int r = 0; r < p.Count; r++) values[r * dims + k] = (values[r * dims + k] - centre) / scale;
         }
-        return new PreparedSignals(p.CoreId, p.Top, p.Step, p.Count, p.Signals, values);
+        return new PreparedSignals(p.CoreId, p.Top, p.Step, p.Count, p.Signals, values, p.SampleSpacing);
     }
 
     /// <summary>z-score (mean, sample SD) or robust (median, 1.4826 x MAD, consistent with the SD for normal data).</summary>

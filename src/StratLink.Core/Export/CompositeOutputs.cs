@@ -35,7 +35,7 @@ public static class CompositeOutputs
         foreach (var table in result.Mappings)
         {
             var events = project.Project.FindCore(table.CoreId) is { } core ? EventFreeScale.Of(core, table.Unit) : null;
-            files.Add(WriteFile(Path.Combine(directory, MappingCsvWriter.FileName(table.CoreId, format)), w => MappingCsvWriter.Write(table, w, format, events)));
+            files.Add(WriteFile(Path.Combine(directory, MappingCsvWriter.FileName(table.CoreId, format)), w => MappingCsvWriter.Write(table, result.Mappings, w, format, events)));
         }
         string figures = Path.Combine(directory, "figures");
         files.AddRange(CompositeFigures.WriteAll(result, figures));

@@ -16,7 +16,8 @@ namespace StratLink.Tests.Alignment;
 /// Real data: benthic d18O of ODP Sites 927 and 925 (Ceara Rise; Bickert, Curry and Wefer 1997,
 /// Proc. ODP Sci. Results 154:239-254), aligned by dtw with no ties, compared with the published
 /// site-to-site correlation implied by the authors' two age models (the depths of every tie age
-/// present in both files).
+/// present in both files). The ensemble's 95% band must hold that correlation at >= 90% of the
+/// compared samples without spanning whole cycles.
 /// </summary>
 public class CearaRiseTests(ITestOutputHelper output)
 {
@@ -88,6 +89,7 @@ public class CearaRiseTests(ITestOutputHelper output)
         double lo = Math.Max(x[0], site927.Depths[0]), hi = x.Where(d => published.ToCompositeValue(d) <= site925.Depths[^1]).Max();
         double sq = 0, sqOpt = 0;
         int n = 0, covered = 0;
+        var widths = new List<double>();
         foreach (double z in site927.Depths)
         {
             if (z < lo || z > hi) continue;
@@ -98,6 +100,7 @@ public class CearaRiseTests(ITestOutputHelper output)
             sqOpt += eo * eo;
             var (blo, bhi) = ens.CompositeRange(z);
             if (truth >= blo && truth <= bhi) covered++;
+            widths.Add(bhi - blo);
             n++;
         }
         double rms = Math.Sqrt(sq / n), rmsOpt = Math.Sqrt(sqOpt / n);
@@ -108,7 +111,14 @@ public class CearaRiseTests(ITestOutputHelper output)
         double rate925 = (shared[^1].D925 - shared[0].D925) / (shared[^1].Age - shared[0].Age); // m per Myr
         double bound = 0.5 * 0.041 * rate925;
         output.WriteLine($"ODP 927 -> 925 by d18O, no ties: RMS {rms:0.000} m (median of {ens.Members.Count}), optimal path {rmsOpt:0.000} m, over {n} samples {lo:0.00}-{hi:0.00} mcd;");
-        output.WriteLine($"95% band holds the published correlation at {(double)covered / n:P1}; T = {diag.Temperature:0.000}; bound (half a 41-kyr cycle at {rate925:0.0} m/Myr) = {bound:0.000} m");
+        double coverage = (double)covered / n, medianWidth = Statistics.PercentileSorted([.. widths.Order()], 50);
+        output.WriteLine($"95% band holds the published correlation at {coverage:P1}, median width {medianWidth:0.000} m; T = {diag.Temperature:0.000}; bound (half a 41-kyr cycle at {rate925:0.0} m/Myr) = {bound:0.000} m");
         Assert.True(rms <= bound, $"RMS {rms:0.000} m exceeds half an obliquity cycle in 925 depth ({bound:0.000} m)");
+        // A 95% band must hold the published correlation at >= 90% of samples: some misfit allowed,
+        // since that correlation is itself interpolated between tie depths picked on samples about
+        // 0.1 m apart in each site. The median width is held to one 41-kyr half-cycle too, so the
+        // coverage cannot come from a band that spans whole cycles.
+        Assert.True(coverage >= 0.90, $"the 95% band holds the published correlation at {coverage:P1} of samples");
+        Assert.True(medianWidth <= bound, $"median band width {medianWidth:0.000} m exceeds half an obliquity cycle ({bound:0.000} m)");
     }
 }

@@ -60,8 +60,8 @@ public class CompositeTablesTests
         // B's members shift by 1, 2 and 3 cm: R quantile(c(1, 2, 3), c(0.025, 0.975), type = 7) = 1.05, 2.95
         // (Hyndman and Fan 1996 type 7), so at sample depth d the band is d + 1.05 to d + 2.95.
         var result = Build(withAges: false);
-        var rows = Rows(w => MappingCsvWriter.Write(result.Mappings.Single(m => m.CoreId == "B"), w));
-        Assert.Equal(["depth_cm", "composite_depth_cm", "composite_depth_lo_cm", "composite_depth_hi_cm"], rows[0]);
+        var rows = Rows(w => MappingCsvWriter.Write(result.Mappings.Single(m => m.CoreId == "B"), result.Mappings, w));
+        Assert.Equal(["depth_cm", "composite_depth_cm", "composite_depth_lo_cm", "composite_depth_hi_cm", "matched"], rows[0]);
         Assert.Equal(22, rows.Length);
         var row = rows[6].Select(c => double.Parse(c, System.Globalization.CultureInfo.InvariantCulture)).ToArray();
         Assert.Equal(5, row[0]);
@@ -70,7 +70,7 @@ public class CompositeTablesTests
         Assert.Equal(7.95, row[3], 12);
         Assert.Equal("mapping-B.csv", MappingCsvWriter.FileName("B"));
         var all = Rows(w => CompositeOutputs.WriteTable(result, CompositeTableKind.Mappings, w));
-        Assert.Equal(["core", "depth_cm", "composite_depth_cm", "composite_depth_lo_cm", "composite_depth_hi_cm"], all[0]);
+        Assert.Equal(["core", "depth_cm", "composite_depth_cm", "composite_depth_lo_cm", "composite_depth_hi_cm", "matched"], all[0]);
         Assert.Equal(1 + 21 + 21, all.Length);
     }
 
@@ -81,7 +81,7 @@ public class CompositeTablesTests
         // an event the event-free depth of its top (an event takes no time; worked by hand).
         var result = Build(withAges: false);
         var events = new StratLink.AgeModelling.EventFreeScale([2, 10], [4, 11]);
-        var rows = Rows(w => MappingCsvWriter.Write(result.Mappings.Single(m => m.CoreId == "B"), w, TableFormat.Csv, events));
+        var rows = Rows(w => MappingCsvWriter.Write(result.Mappings.Single(m => m.CoreId == "B"), result.Mappings, w, TableFormat.Csv, events));
         Assert.Equal("event_free_depth_cm", rows[0][^1]);
         var byDepth = rows.Skip(1).ToDictionary(r => r[0], r => double.Parse(r[^1], System.Globalization.CultureInfo.InvariantCulture));
         Assert.Equal(1, byDepth["1"], 12);
