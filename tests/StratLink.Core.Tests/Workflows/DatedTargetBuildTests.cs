@@ -95,12 +95,11 @@ public sealed class DatedTargetBuildTests(ITestOutputHelper output) : IDisposabl
 
         // Bounds: the target must at least halve the constant-rate error, and stay within half a 41-kyr obliquity cycle of the authors' tuning, the scale on which a tuning can be
         // off by a cycle (common practice), as the alignment alone; the age model adds the target's age error and
-        // the rate's freedom between controls, so its 95 % range must hold the published age about as often as the
-        // transferred controls' own 95 % intervals do at the library level (85 %; the bare alignment band: 53 %),
-        // less a margin for this small ensemble.
+        // the rate's freedom between controls, so its 95 % range must hold the published age at least as often as the
+        // transferred controls' own 95 % intervals do at the library level (90 %; the bare alignment band: 67 %).
         Assert.True(rms <= 0.5 * straight, $"RMS {rms:0.0} kyr is not at most half the constant-rate {straight:0.0} kyr");
         Assert.True(rms <= 20.5, $"RMS {rms:0.0} kyr exceeds half an obliquity cycle");
-        Assert.True(coverage >= 0.80, $"95% range holds the published age at only {coverage:P1}");
+        Assert.True(coverage >= 0.90, $"95% range holds the published age at only {coverage:P1}");
     }
 
     [Fact]
