@@ -615,7 +615,7 @@ public static class AgeModeller
                         knotWeight[knots] = pc.Weights[q];
                     }
                 }
-            SortOrder(knotDepth, knots, b.KnotOrder, b.KnotKeys);
+            SortOrder(knotDepth, knots, fixedKnots, b.KnotOrder, b.KnotKeys);
             ordered = StratigraphicOrder.IsOrdered(b.KnotOrder.AsSpan(0, knots), knotDepth.AsSpan(0, knots), knotAge.AsSpan(0, knots));
         }
         var order = b.KnotOrder.AsSpan(0, knots);
@@ -648,12 +648,45 @@ public static class AgeModeller
         return (curve, logWeight);
     }
 
-    /// <summary>Indices 0 .. count - 1 of <paramref name="depths"/> in ascending depth, into <paramref name="order"/> (<paramref name="keys"/> is scratch).</summary>
-    private static void SortOrder(double[] depths, int count, int[] order, double[] keys)
+    /// <summary>
+    /// Indices 0 .. count - 1 of <paramref name="depths"/> in ascending depth, into <paramref name="order"/> as
+    /// <see cref="Array.Sort{TKey, TValue}(TKey[], TValue[], int, int)"/> orders them (<paramref name="keys"/> is scratch).
+    /// The first <paramref name="presorted"/> depths (a backbone's points) mostly ascend already: the few after them
+    /// are merged in, and when no two depths are equal that order is the only one, so it is the sort's.
+    /// </summary>
+    private static void SortOrder(double[] depths, int count, int presorted, int[] order, double[] keys)
     {
-        for (int k = 0; k < count; k++) order[k] = k;
-        Array.Copy(depths, keys, count);
-        Array.Sort(keys, order, 0, count);
+        if (!TryMergeOrder(depths, count, presorted, order, keys))
+        {
+            for (int k = 0; k < count; k++) order[k] = k;
+            Array.Copy(depths, keys, count);
+            Array.Sort(keys, order, 0, count);
+        }
+    }
+
+    /// <summary>The merge of <see cref="SortOrder"/>; false (order and keys left undefined) unless every depth differs.</summary>
+    private static bool TryMergeOrder(double[] depths, int count, int presorted, int[] order, double[] keys)
+    {
+        const int MaxMerged = 64;
+        int rest = count - presorted;
+        if (presorted < 2 || rest > MaxMerged || !StrictlyIncreasing(depths.AsSpan(0, presorted))) return false;
+        Span<double> restKeys = stackalloc double[rest];
+        Span<int> restIndex = stackalloc int[rest];
+        for (int k = 0; k < rest; k++)
+        {
+            restKeys[k] = depths[presorted + k];
+            restIndex[k] = presorted + k;
+        }
+        restKeys.Sort(restIndex);
+        int a = 0, b = 0;
+        for (int k = 0; k < count; k++)
+        {
+            bool fromRest = a == presorted || (b < rest && restKeys[b] < depths[a]);
+            order[k] = fromRest ? restIndex[b] : a;
+            keys[k] = fromRest ? restKeys[b++] : depths[a++];
+            if (k > 0 && !(keys[k] > keys[k - 1])) return false;
+        }
+        return true;
     }
 
     /// <summary>True when the depths hold two different values (as <see cref="Enumerable.Distinct{T}(IEnumerable{T})"/> tells them apart).</summary>

@@ -42,9 +42,9 @@ internal sealed class RateWalk
     /// <summary>The curve through <paramref name="controls"/>' knots with a walked rate between and beyond them.</summary>
     public AgeDepthCurve Apply(AgeDepthCurve controls, Random rng)
     {
-        var z = controls.CompositeDepths;
-        var a = controls.AgesBP;
-        int k = z.Count;
+        var z = controls.DepthSpan;
+        var a = controls.AgeSpan;
+        int k = z.Length;
         // The knots are counted first and written in place: a walked curve has thousands (a varve count's
         // points each make one), and growing lists for them cost more than the walk itself.
         int above = _extentTop < z[0] ? ExtrapolationSteps(z[0] - _extentTop, z[1] - z[0], out _) : 0;
@@ -65,7 +65,7 @@ internal sealed class RateWalk
         return new AgeDepthCurve(zs, ys, z[0], z[k - 1], controls.Interpolation);
     }
 
-    private static double Rate(IReadOnlyList<double> z, IReadOnlyList<double> a, int segment) =>
+    private static double Rate(ReadOnlySpan<double> z, ReadOnlySpan<double> a, int segment) =>
         (a[segment + 1] - a[segment]) / (z[segment + 1] - z[segment]);
 
     private int StepsFor(double span) => (int)Math.Clamp(Math.Ceiling(span / _stepFloor - 1e-9), 1, StepsPerInterval);
@@ -73,7 +73,9 @@ internal sealed class RateWalk
     /// <summary>Writes the knots after control knot <paramref name="s"/> up to and including knot s + 1 from index <paramref name="at"/>; returns the next index.</summary>
     private int Bridge(AgeDepthCurve controls, int s, Random rng, double[] zs, double[] ys, int at)
     {
-        double z0 = controls.CompositeDepths[s], a0 = controls.AgesBP[s], z1 = controls.CompositeDepths[s + 1], a1 = controls.AgesBP[s + 1];
+        var z = controls.DepthSpan;
+        var a = controls.AgeSpan;
+        double z0 = z[s], a0 = a[s], z1 = z[s + 1], a1 = a[s + 1];
         // Sub-steps lie in segment s: the search starts there instead of bisecting all knots at every sub-step.
         int segment = s;
         int n = StepsFor(z1 - z0);
