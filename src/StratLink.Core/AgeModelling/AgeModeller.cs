@@ -385,6 +385,7 @@ public static class AgeModeller
             FirstAge = new double[total];
             SortedDepth = new double[total];
             SortedAge = new double[total];
+            SortedCopy = new bool[prepared.Length];
             int activePoints = active.Sum(c => prepared[c]!.PointCount);
             ActiveIndex = new int[activePoints];
             ActiveControl = new int[activePoints];
@@ -413,6 +414,9 @@ public static class AgeModeller
         public double[] FirstAge { get; }
         public double[] SortedDepth { get; }
         public double[] SortedAge { get; }
+
+        /// <summary>Per control: its points are sorted into <see cref="SortedDepth"/> and <see cref="SortedAge"/> (else read in place).</summary>
+        public bool[] SortedCopy { get; }
         public int[] ActiveIndex { get; }
         public int[] ActiveControl { get; }
         public double[] ActiveWeight { get; }
@@ -786,22 +790,24 @@ public static class AgeModeller
         foreach (int c in measured)
         {
             // Sort each control's points by depth (a marker's cores may come in any order; ages are equal then).
+            // Points already strictly increasing (a varve count's mostly are) can only sort to their own order: read in place.
             int o = b.Offset[c], len = prepared[c]!.PointCount;
+            b.SortedCopy[c] = len > 1 && !StrictlyIncreasing(b.Depth.AsSpan(o, len));
+            if (!b.SortedCopy[c]) continue;
             Array.Copy(b.Depth, o, b.SortedDepth, o, len);
             Array.Copy(b.FirstAge, o, b.SortedAge, o, len);
-            // Already strictly increasing (a varve count's points mostly are): the sort could only give this order.
-            if (len > 1 && !StrictlyIncreasing(b.SortedDepth.AsSpan(o, len))) Array.Sort(b.SortedDepth, b.SortedAge, o, len);
+            Array.Sort(b.SortedDepth, b.SortedAge, o, len);
         }
         foreach (int c in measured)
         {
             bool conflict = false;
-            var zc = b.SortedDepth.AsSpan(b.Offset[c], prepared[c]!.PointCount);
-            var ac = b.SortedAge.AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            var zc = (b.SortedCopy[c] ? b.SortedDepth : b.Depth).AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            var ac = (b.SortedCopy[c] ? b.SortedAge : b.FirstAge).AsSpan(b.Offset[c], prepared[c]!.PointCount);
             foreach (int k in active)
             {
                 if (k == c) continue;
-                var zk = b.SortedDepth.AsSpan(b.Offset[k], prepared[k]!.PointCount);
-                var ak = b.SortedAge.AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                var zk = (b.SortedCopy[k] ? b.SortedDepth : b.Depth).AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                var ak = (b.SortedCopy[k] ? b.SortedAge : b.FirstAge).AsSpan(b.Offset[k], prepared[k]!.PointCount);
                 if (StratigraphicOrder.Conflict(zc, ac, zk, ak)) { conflict = true; break; }
             }
             draws.Contradicted[i * nControls + c] = conflict;
