@@ -9,9 +9,10 @@
 #       difference of the distances; then the in-process kernel against a plain C rolling-row loop
 #       (gcc -O2) in ns per lattice cell.
 #   bench/whole-process.sh build REV [ROUNDS]
-#       a cold `stratlink build` of the demo project by this tree against one built from git
-#       revision REV (3 rounds by default), and whether the outputs are identical (run.json apart
-#       from its stage timings).
+#       a cold `stratlink build` by one built from git revision REV of REV's own demo project,
+#       against this tree building that same project and today's demo (3 rounds by default):
+#       medians of wall, CPU and peak memory, ratios, and which outputs of the shared project differ
+#       (run.json apart from its stage timings).
 #
 # This tree's stratlink is published as the tool ships (ReadyToRun, linux-x64). Installs the Debian
 # packages it drives when missing (time, python3-mlpy, gcc). The machine's load is printed before
@@ -99,35 +100,50 @@ EOF
   ;;
 build)
   need time
-  rev=${2:?give the git revision to compare with, e.g. main}
+  rev=${2:?give the git revision to compare with, e.g. 9c6b142}
   rounds=${3:-3}
   publish
   mkdir -p "$work/old-src"
   git -C "$root" archive "$rev" | tar -x -C "$work/old-src"
   dotnet build "$work/old-src/src/StratLink.Cli" -c Release -o "$work/old" -v q -nologo >/dev/null
-  project="$root/projects-demo/mirrowick-fjord.stratlink.yaml"
+  # An older revision may not read today's demo keys, so it builds its own demo; this tree builds
+  # that same project (the like-for-like pair, whose outputs are compared) and today's demo.
+  old_project="$work/old-src/projects-demo/mirrowick-fjord.stratlink.yaml"
+  new_project="$root/projects-demo/mirrowick-fjord.stratlink.yaml"
   : >"$work/times"
   for r in $(seq "$rounds"); do
-    new=(run new "$work/stratlink/stratlink" build "$project" --out "$work/out-new")
-    old=(run old "$work/old/stratlink" build "$project" --out "$work/out-old")
-    if [ $((r % 2)) -eq 1 ]; then "${new[@]}"; "${old[@]}"; else "${old[@]}"; "${new[@]}"; fi
+    old=(run old "$work/old/stratlink" build "$old_project" --out "$work/out-old")
+    same=(run same "$work/stratlink/stratlink" build "$old_project" --out "$work/out-same")
+    today=(run today "$work/stratlink/stratlink" build "$new_project" --out "$work/out-today")
+    if [ $((r % 2)) -eq 1 ]; then "${old[@]}"; "${same[@]}"; "${today[@]}"; else "${today[@]}"; "${same[@]}"; "${old[@]}"; fi
   done
-  echo "cold build of the demo, median of $rounds alternating rounds: this tree $(median $(col new 2)) s, $rev $(median $(col old 2)) s," \
-    "ratio $(/usr/bin/python3 -c "import sys; print(f'{float(sys.argv[1]) / float(sys.argv[2]):.2f}')" "$(median $(col new 2))" "$(median $(col old 2))");" \
-    "peak RSS $(median $(col new 3)) KB against $(median $(col old 3)) KB"
-  echo "process CPU seconds (user + system; steadier than wall on a loaded machine): this tree $(median $(col new 4)), $rev $(median $(col old 4))," \
-    "ratio $(/usr/bin/python3 -c "import sys; print(f'{float(sys.argv[1]) / float(sys.argv[2]):.2f}')" "$(median $(col new 4))" "$(median $(col old 4))")"
+  echo "cold build, median of $rounds alternating rounds; wall and CPU (user + system) seconds, peak RSS MB; ratio = this tree / $rev"
+  /usr/bin/python3 - "$rev" "$(median $(col old 2))" "$(median $(col old 4))" "$(median $(col old 3))" \
+    "$(median $(col same 2))" "$(median $(col same 4))" "$(median $(col same 3))" \
+    "$(median $(col today 2))" "$(median $(col today 4))" "$(median $(col today 3))" <<'EOF'
+import sys
+rev = sys.argv[1]
+ow, oc, om, sw, sc, sm, tw, tc, tm = map(float, sys.argv[2:])
+print(f"{'':34} {'wall_s':>7} {'ratio':>6} {'cpu_s':>7} {'ratio':>6} {'RSS_MB':>7} {'ratio':>6}")
+for label, w, c, m in ((f"{rev} on {rev}'s demo", ow, oc, om), (f"this tree on {rev}'s demo", sw, sc, sm), ("this tree on today's demo", tw, tc, tm)):
+    print(f"{label:34} {w:7.2f} {w / ow:5.2f}x {c:7.2f} {c / oc:5.2f}x {m / 1024:7.1f} {m / om:5.2f}x")
+print(f"speed-up on {rev}'s demo: {ow / sw:.2f}x wall, {oc / sc:.2f}x CPU; today's demo against it: {ow / tw:.2f}x wall, {oc / tc:.2f}x CPU")
+EOF
   differ=0
   for f in $(cd "$work/out-old" && find . -type f | sort); do
+    if [ ! -e "$work/out-same/$f" ]; then echo "  only $rev writes: $f"; differ=1; continue; fi
     if [ "$f" = ./run.json ]; then
       /usr/bin/python3 -c 'import json, sys; a, b = (json.load(open(f)) for f in sys.argv[1:]); a.pop("stages_seconds", None); b.pop("stages_seconds", None); sys.exit(a != b)' \
-        "$work/out-old/$f" "$work/out-new/$f" && continue
+        "$work/out-old/$f" "$work/out-same/$f" && continue
     else
-      cmp -s "$work/out-old/$f" "$work/out-new/$f" && continue
+      cmp -s "$work/out-old/$f" "$work/out-same/$f" && continue
     fi
     echo "  differs: $f"; differ=1
   done
-  [ "$differ" -eq 1 ] || echo "outputs identical to $rev's (run.json apart from the stage timings)"
+  for f in $(cd "$work/out-same" && find . -type f | sort); do
+    [ -e "$work/out-old/$f" ] || { echo "  only this tree writes: $f"; differ=1; }
+  done
+  [ "$differ" -eq 1 ] || echo "outputs of $rev's demo identical between $rev and this tree (run.json apart from the stage timings)"
   ;;
 *)
   echo "usage: $0 pair [ROUNDS] [N ...] | build REV [ROUNDS]" >&2; exit 2 ;;

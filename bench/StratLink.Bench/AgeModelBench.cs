@@ -13,7 +13,8 @@ namespace StratLink.Bench;
 /// <summary>
 /// The age model of the demo site (4 cores, 2,000 iterations, two varve counts, event layers in every core,
 /// coring year and three tephra ages): wall and CPU time, against peers in the same session: the same
-/// project without its event layers, and with the calendar ages alone (no varve counts).
+/// project without its event layers, and with the calendar ages alone (no varve counts). Also the memory the
+/// last run allocated, the garbage collections it caused (generations 0/1/2) and their pauses.
 /// </summary>
 internal static class AgeModelBench
 {
@@ -25,7 +26,7 @@ internal static class AgeModelBench
         var noEvents = full with { Cores = [.. full.Cores.Select(c => c with { Events = [] })] };
         var calendarOnly = full with { Ages = [.. full.Ages.Where(a => a is CalendarAgeControl)] };
         Console.WriteLine($"age model, {full.Cores.Count} cores x {full.AgeModel.Iterations} iterations, best of 3 (after one warm-up run)");
-        Console.WriteLine("case                              wall s   cpu s   wall / full");
+        Console.WriteLine("case                              wall s   cpu s   wall / full   alloc MB   GCs 0/1/2   GC pause s");
         double reference = 0;
         foreach (var (name, project) in new[] { ("varves + events (full)", full), ("varves, no events", noEvents), ("calendar ages only", calendarOnly) })
         {
@@ -33,17 +34,25 @@ internal static class AgeModelBench
             var varves = project.Ages.OfType<VarveCountControl>().ToDictionary(c => c.Id,
                 c => (site.CountedVarvesOf(c.Core).Select(v => v.Top).ToArray(), site.CountedVarvesOf(c.Core).Select(v => v.Bottom).ToArray()));
             AgeModeller.Run(loaded, alignment, varves, null, CancellationToken.None);
-            double bestWall = double.PositiveInfinity, bestCpu = double.PositiveInfinity;
+            double bestWall = double.PositiveInfinity, bestCpu = double.PositiveInfinity, allocated = 0, pause = 0;
+            var collections = new int[3];
             for (int k = 0; k < 3; k++)
             {
                 var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+                long bytes = GC.GetTotalAllocatedBytes(true);
+                var paused = GC.GetTotalPauseDuration();
+                int[] before = [GC.CollectionCount(0), GC.CollectionCount(1), GC.CollectionCount(2)];
                 var wall = Stopwatch.StartNew();
                 AgeModeller.Run(loaded, alignment, varves, null, CancellationToken.None);
                 bestWall = Math.Min(bestWall, wall.Elapsed.TotalSeconds);
                 bestCpu = Math.Min(bestCpu, (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds);
+                allocated = (GC.GetTotalAllocatedBytes(true) - bytes) / 1048576.0;
+                pause = (GC.GetTotalPauseDuration() - paused).TotalSeconds;
+                for (int g = 0; g < 3; g++) collections[g] = GC.CollectionCount(g) - before[g];
             }
             if (reference == 0) reference = bestWall;
-            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{name,-32} {bestWall,7:0.000} {bestCpu,7:0.000} {bestWall / reference,12:0.00}"));
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"{name,-32} {bestWall,7:0.000} {bestCpu,7:0.000} {bestWall / reference,12:0.00} {allocated,10:0} {$"{collections[0]}/{collections[1]}/{collections[2]}",11} {pause,12:0.000}"));
         }
     }
 

@@ -49,6 +49,11 @@ public sealed class AgeDepthCurve
     public IReadOnlyList<double> CompositeDepths => _z;
     public IReadOnlyList<double> AgesBP => _age;
 
+    /// <summary>The knots' depths and ages without the interface calls of <see cref="CompositeDepths"/> (hot loops).</summary>
+    internal ReadOnlySpan<double> DepthSpan => _z;
+
+    internal ReadOnlySpan<double> AgeSpan => _age;
+
     /// <summary>Composite depth of the shallowest control.</summary>
     public double TopDepth { get; }
 

@@ -385,12 +385,18 @@ public static class AgeModeller
             FirstAge = new double[total];
             SortedDepth = new double[total];
             SortedAge = new double[total];
+            SortedCopy = new bool[prepared.Length];
             int activePoints = active.Sum(c => prepared[c]!.PointCount);
             ActiveIndex = new int[activePoints];
             ActiveControl = new int[activePoints];
             ActiveWeight = new double[activePoints];
             Order = new int[activePoints];
             OrderKeys = new double[activePoints];
+            KnotDepth = new double[activePoints];
+            KnotAge = new double[activePoints];
+            KnotWeight = new double[activePoints];
+            KnotOrder = new int[activePoints];
+            KnotKeys = new double[activePoints];
             int k = 0;
             foreach (int c in active)
                 for (int q = 0; q < prepared[c]!.PointCount; q++)
@@ -408,12 +414,25 @@ public static class AgeModeller
         public double[] FirstAge { get; }
         public double[] SortedDepth { get; }
         public double[] SortedAge { get; }
+
+        /// <summary>Per control: its points are sorted into <see cref="SortedDepth"/> and <see cref="SortedAge"/> (else read in place).</summary>
+        public bool[] SortedCopy { get; }
         public int[] ActiveIndex { get; }
         public int[] ActiveControl { get; }
         public double[] ActiveWeight { get; }
         public int[] Order { get; }
         public double[] OrderKeys { get; }
         public Random[] Rng { get; }
+
+        /// <summary>One iteration's knots: depth, age, weight, and their depth order (keys: sort scratch).</summary>
+        public double[] KnotDepth { get; }
+        public double[] KnotAge { get; }
+        public double[] KnotWeight { get; }
+        public int[] KnotOrder { get; }
+        public double[] KnotKeys { get; }
+
+        /// <summary>The backbone's point depths in this iteration, sized on first use.</summary>
+        public double[]? BackboneDepth { get; set; }
     }
 
     /// <summary>Per-iteration records written by index (so parallel runs give identical results).</summary>
@@ -456,8 +475,20 @@ public static class AgeModeller
             var pc = prepared[c]!;
             b.Rng[c] = new Random(SeedStreams.Derive(seed, i, c));
             var depths = b.Depth.AsSpan(b.Offset[c], pc.PointCount);
+            // A control's points mostly lie in one core: look its mapping and event layers up once per run of points.
+            string? core = null;
+            DepthMapping? mapping = null;
+            var coreEvents = EventFreeScale.None;
             for (int q = 0; q < pc.PointCount; q++)
-                depths[q] = scales.ToModelDepth(pc.PointCores[q], alignment.Mappings[pc.PointCores[q]].Member(i), pc.PointDepths[q]);
+            {
+                if (!ReferenceEquals(pc.PointCores[q], core))
+                {
+                    core = pc.PointCores[q];
+                    mapping = alignment.Mappings[core].Member(i);
+                    coreEvents = scales.Of(core);
+                }
+                depths[q] = scales.Composite.ToEventFree(mapping!.ToCompositeValue(coreEvents.BaseOf(pc.PointDepths[q])));
+            }
             if (pc.IsMarker && pc.PointCount > 1) PlaceMarker(pc, depths, alignment.ReferenceCore);
             double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
             foreach (double z in depths)
@@ -494,7 +525,8 @@ public static class AgeModeller
         if (backbone >= 0)
         {
             var pb = prepared[backbone]!;
-            var bDepths = b.Depth.AsSpan(b.Offset[backbone], pb.PointCount).ToArray();
+            var bDepths = b.BackboneDepth ??= new double[pb.PointCount];
+            Array.Copy(b.Depth, b.Offset[backbone], bDepths, 0, pb.PointCount);
             var observations = new List<PreparedControl.PathObservation>();
             foreach (int c in active)
             {
@@ -533,30 +565,30 @@ public static class AgeModeller
             for (int o = 0; o < observations.Count; o++) draws.Outlier[i * nControls + observations[o].Control] = flags[o] ? 1 : 0;
         }
 
-        // Knots: the backbone's points, then the point controls that are not weighed.
-        var knotDepth = new List<double>();
-        var knotAge = new List<double>();
-        var knotWeight = new List<double>();
+        // Knots: the backbone's points, then the point controls that are not weighed (in per-thread buffers:
+        // a varve backbone gives thousands of them in every iteration).
+        var knotDepth = b.KnotDepth;
+        var knotAge = b.KnotAge;
+        var knotWeight = b.KnotWeight;
+        int knots = 0;
         if (backbone >= 0)
         {
             var pb = prepared[backbone]!;
-            for (int q = 0; q < pb.PointCount; q++)
+            for (int q = 0; q < pb.PointCount; q++, knots++)
             {
-                knotDepth.Add(b.Depth[b.Offset[backbone] + q]);
-                knotAge.Add(b.FirstAge[b.Offset[backbone] + q]);
-                knotWeight.Add(pb.Weights[q]);
+                knotDepth[knots] = b.Depth[b.Offset[backbone] + q];
+                knotAge[knots] = b.FirstAge[b.Offset[backbone] + q];
+                knotWeight[knots] = pb.Weights[q];
             }
         }
-        int fixedKnots = knotDepth.Count;
+        int fixedKnots = knots;
         var free = active.Where(c => c != backbone && !InReach(c)).ToArray();
         var outlier = new bool[free.Length];
-        int distinctFixed = knotDepth.Distinct().Count();
+        bool twoFixedDepths = HasTwoDepths(knotDepth.AsSpan(0, fixedKnots));
         bool ordered = false;
         for (int attempt = 0; attempt < MaxOrderAttempts && !ordered; attempt++)
         {
-            knotDepth.RemoveRange(fixedKnots, knotDepth.Count - fixedKnots);
-            knotAge.RemoveRange(fixedKnots, knotAge.Count - fixedKnots);
-            knotWeight.RemoveRange(fixedKnots, knotWeight.Count - fixedKnots);
+            knots = fixedKnots;
             for (int f = 0; f < free.Length; f++)
             {
                 var pc = prepared[free[f]]!;
@@ -565,41 +597,40 @@ public static class AgeModeller
                 // A first draw in order keeps every knot; the redraws of a set out of order leave outliers out.
                 outlier[f] = attempt > 0 && pc.OutlierPrior > 0 && b.Rng[free[f]].NextDouble() < pc.OutlierPrior;
                 if (outlier[f]) continue;
-                for (int q = 0; q < pc.PointCount; q++)
+                for (int q = 0; q < pc.PointCount; q++, knots++)
                 {
-                    knotDepth.Add(b.Depth[b.Offset[free[f]] + q]);
-                    knotAge.Add(ages[q]);
-                    knotWeight.Add(pc.Weights[q]);
+                    knotDepth[knots] = b.Depth[b.Offset[free[f]] + q];
+                    knotAge[knots] = ages[q];
+                    knotWeight[knots] = pc.Weights[q];
                 }
             }
             // Outliers are never so many that fewer than two knot depths remain: then they all count.
-            if (distinctFixed < 2 && knotDepth.Distinct().Count() < 2)
+            if (!twoFixedDepths && !HasTwoDepths(knotDepth.AsSpan(0, knots)))
                 for (int f = 0; f < free.Length; f++)
                 {
                     if (!outlier[f]) continue;
                     outlier[f] = false;
                     var pc = prepared[free[f]]!;
                     var ages = (attempt == 0 ? b.FirstAge : b.Age).AsSpan(b.Offset[free[f]], pc.PointCount);
-                    for (int q = 0; q < pc.PointCount; q++)
+                    for (int q = 0; q < pc.PointCount; q++, knots++)
                     {
-                        knotDepth.Add(b.Depth[b.Offset[free[f]] + q]);
-                        knotAge.Add(ages[q]);
-                        knotWeight.Add(pc.Weights[q]);
+                        knotDepth[knots] = b.Depth[b.Offset[free[f]] + q];
+                        knotAge[knots] = ages[q];
+                        knotWeight[knots] = pc.Weights[q];
                     }
                 }
-            ordered = StratigraphicOrder.IsOrdered(SortedOrder(knotDepth), [.. knotDepth], [.. knotAge]);
+            SortOrder(knotDepth, knots, fixedKnots, b.KnotOrder, b.KnotKeys);
+            ordered = StratigraphicOrder.IsOrdered(b.KnotOrder.AsSpan(0, knots), knotDepth.AsSpan(0, knots), knotAge.AsSpan(0, knots));
         }
-        var order = SortedOrder(knotDepth);
-        var depth = knotDepth.ToArray();
-        var age = knotAge.ToArray();
+        var order = b.KnotOrder.AsSpan(0, knots);
         if (!ordered)
         {
-            StratigraphicOrder.Pool(order, age, [.. knotWeight]);
+            StratigraphicOrder.Pool(order, knotAge.AsSpan(0, knots), knotWeight.AsSpan(0, knots));
             Interlocked.Increment(ref forced);
         }
         for (int f = 0; f < free.Length; f++) draws.Outlier[i * nControls + free[f]] = outlier[f] ? 1 : 0;
 
-        var curve = BuildCurve(order, depth, age, interpolation, i);
+        var curve = BuildCurve(order, knotDepth, knotAge, interpolation, i);
         // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
         if (walk is not null) curve = walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
 
@@ -621,12 +652,53 @@ public static class AgeModeller
         return (curve, logWeight);
     }
 
-    private static int[] SortedOrder(List<double> depths)
+    /// <summary>
+    /// Indices 0 .. count - 1 of <paramref name="depths"/> in ascending depth, into <paramref name="order"/> as
+    /// <see cref="Array.Sort{TKey, TValue}(TKey[], TValue[], int, int)"/> orders them (<paramref name="keys"/> is scratch).
+    /// The first <paramref name="presorted"/> depths (a backbone's points) mostly ascend already: the few after them
+    /// are merged in, and when no two depths are equal that order is the only one, so it is the sort's.
+    /// </summary>
+    private static void SortOrder(double[] depths, int count, int presorted, int[] order, double[] keys)
     {
-        var order = Enumerable.Range(0, depths.Count).ToArray();
-        var keys = depths.ToArray();
-        Array.Sort(keys, order);
-        return order;
+        if (!TryMergeOrder(depths, count, presorted, order, keys))
+        {
+            for (int k = 0; k < count; k++) order[k] = k;
+            Array.Copy(depths, keys, count);
+            Array.Sort(keys, order, 0, count);
+        }
+    }
+
+    /// <summary>The merge of <see cref="SortOrder"/>; false (order and keys left undefined) unless every depth differs.</summary>
+    private static bool TryMergeOrder(double[] depths, int count, int presorted, int[] order, double[] keys)
+    {
+        const int MaxMerged = 64;
+        int rest = count - presorted;
+        if (presorted < 2 || rest > MaxMerged || !StrictlyIncreasing(depths.AsSpan(0, presorted))) return false;
+        Span<double> restKeys = stackalloc double[rest];
+        Span<int> restIndex = stackalloc int[rest];
+        for (int k = 0; k < rest; k++)
+        {
+            restKeys[k] = depths[presorted + k];
+            restIndex[k] = presorted + k;
+        }
+        restKeys.Sort(restIndex);
+        int a = 0, b = 0;
+        for (int k = 0; k < count; k++)
+        {
+            bool fromRest = a == presorted || (b < rest && restKeys[b] < depths[a]);
+            order[k] = fromRest ? restIndex[b] : a;
+            keys[k] = fromRest ? restKeys[b++] : depths[a++];
+            if (k > 0 && !(keys[k] > keys[k - 1])) return false;
+        }
+        return true;
+    }
+
+    /// <summary>True when the depths hold two different values (as <see cref="Enumerable.Distinct{T}(IEnumerable{T})"/> tells them apart).</summary>
+    private static bool HasTwoDepths(ReadOnlySpan<double> depths)
+    {
+        for (int k = 1; k < depths.Length; k++)
+            if (!depths[k].Equals(depths[0])) return true;
+        return false;
     }
 
     private static (double In, double Out) PointLikelihood(PreparedControl pc, double depth, AgeDepthCurve curve)
@@ -718,27 +790,37 @@ public static class AgeModeller
         foreach (int c in measured)
         {
             // Sort each control's points by depth (a marker's cores may come in any order; ages are equal then).
+            // Points already strictly increasing (a varve count's mostly are) can only sort to their own order: read in place.
             int o = b.Offset[c], len = prepared[c]!.PointCount;
+            b.SortedCopy[c] = len > 1 && !StrictlyIncreasing(b.Depth.AsSpan(o, len));
+            if (!b.SortedCopy[c]) continue;
             Array.Copy(b.Depth, o, b.SortedDepth, o, len);
             Array.Copy(b.FirstAge, o, b.SortedAge, o, len);
-            if (len > 1) Array.Sort(b.SortedDepth, b.SortedAge, o, len);
+            Array.Sort(b.SortedDepth, b.SortedAge, o, len);
         }
         foreach (int c in measured)
         {
             bool conflict = false;
-            var zc = b.SortedDepth.AsSpan(b.Offset[c], prepared[c]!.PointCount);
-            var ac = b.SortedAge.AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            var zc = (b.SortedCopy[c] ? b.SortedDepth : b.Depth).AsSpan(b.Offset[c], prepared[c]!.PointCount);
+            var ac = (b.SortedCopy[c] ? b.SortedAge : b.FirstAge).AsSpan(b.Offset[c], prepared[c]!.PointCount);
             foreach (int k in active)
             {
                 if (k == c) continue;
-                var zk = b.SortedDepth.AsSpan(b.Offset[k], prepared[k]!.PointCount);
-                var ak = b.SortedAge.AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                var zk = (b.SortedCopy[k] ? b.SortedDepth : b.Depth).AsSpan(b.Offset[k], prepared[k]!.PointCount);
+                var ak = (b.SortedCopy[k] ? b.SortedAge : b.FirstAge).AsSpan(b.Offset[k], prepared[k]!.PointCount);
                 if (StratigraphicOrder.Conflict(zc, ac, zk, ak)) { conflict = true; break; }
             }
             draws.Contradicted[i * nControls + c] = conflict;
             int first = b.Offset[c];
             draws.Discrepancy[i * nControls + c] = b.FirstAge[first] - PredictFromOthers(c, b.Depth[first], b);
         }
+    }
+
+    private static bool StrictlyIncreasing(ReadOnlySpan<double> values)
+    {
+        for (int k = 1; k < values.Length; k++)
+            if (!(values[k] > values[k - 1])) return false;
+        return true;
     }
 
     /// <summary>Age at <paramref name="z"/> from the first draws of the active points not of control <paramref name="c"/>; NaN with fewer than two.</summary>
@@ -763,24 +845,27 @@ public static class AgeModeller
     }
 
     /// <summary>Knots from ordered points: points at one composite depth become one knot at their mean age.</summary>
-    private static AgeDepthCurve BuildCurve(int[] order, double[] depth, double[] age, AgeInterpolation interpolation, int iteration)
+    private static AgeDepthCurve BuildCurve(ReadOnlySpan<int> order, double[] depth, double[] age, AgeInterpolation interpolation, int iteration)
     {
-        var zs = new List<double>(order.Length);
-        var ys = new List<double>(order.Length);
-        int k = 0;
-        while (k < order.Length)
+        int groups = 0;
+        for (int k = 0; k < order.Length; k++)
+            if (k == 0 || depth[order[k]] != depth[order[k - 1]]) groups++;
+        var zs = new double[groups];
+        var ys = new double[groups];
+        int g = 0;
+        for (int k = 0; k < order.Length; g++)
         {
             double z = depth[order[k]], sum = 0;
             int count = 0;
             for (; k < order.Length && depth[order[k]] == z; k++, count++) sum += age[order[k]];
-            zs.Add(z);
-            ys.Add(sum / count);
+            zs[g] = z;
+            ys[g] = sum / count;
         }
-        if (zs.Count < 2)
+        if (groups < 2)
             throw new InvalidOperationException($"In iteration {iteration} every age control maps to one composite depth ({zs[0].ToString(CultureInfo.InvariantCulture)}): an age model needs controls at two depths at least.");
         // Means of ordered groups are ordered; guard against the last bit of rounding.
-        for (int j = 1; j < ys.Count; j++) if (ys[j] < ys[j - 1]) ys[j] = ys[j - 1];
-        return new AgeDepthCurve([.. zs], [.. ys], interpolation);
+        for (int j = 1; j < ys.Length; j++) if (ys[j] < ys[j - 1]) ys[j] = ys[j - 1];
+        return new AgeDepthCurve(zs, ys, interpolation);
     }
 
     private static ImmutableArray<AgeControlSummary> Summaries(ImmutableList<AgeControlSpec> specs, PreparedControl?[] prepared, string?[] problemOf,
@@ -948,9 +1033,9 @@ public static class AgeModeller
             }
             for (int s = 0; s < len; s++)
             {
-                (med[from + s], lo[from + s], hi[from + s]) = Percentiles(buf.Ages, s * members, buf.Column);
+                (med[from + s], lo[from + s], hi[from + s]) = Percentiles(buf.Ages.AsSpan(s * members, members), buf.Column);
                 // Percentiles of deposition time (yr per unit) inverted are the rate's, ends swapped.
-                var (tMed, tLo, tHi) = Percentiles(buf.Times, s * members, buf.Column);
+                var (tMed, tLo, tHi) = Percentiles(buf.Times.AsSpan(s * members, members), buf.Column);
                 rMed[from + s] = 1 / tMed;
                 rLo[from + s] = 1 / tHi;
                 rHi[from + s] = 1 / tLo;
@@ -967,23 +1052,26 @@ public static class AgeModeller
     /// The six order statistics they interpolate are selected together (<see cref="OrderStatistics.SelectRanks"/>) and
     /// combined by the arithmetic of <see cref="ArrayStatistics.QuantileCustomInplace(double[], double, QuantileDefinition)"/>,
     /// so the values are the same to the bit as three separate quantile selections, for half the passes over the column.
+    /// The column is reordered in place; <paramref name="scratch"/> (as long as the column) serves the general path.
     /// </summary>
-    private static (double Median, double Lo, double Hi) Percentiles(double[] values, int offset, double[] scratch)
+    private static (double Median, double Lo, double Hi) Percentiles(Span<double> column, double[] scratch)
     {
-        Array.Copy(values, offset, scratch, 0, scratch.Length);
-        int n = scratch.Length;
+        int n = column.Length;
         int mid = QuantileRank(n, 0.5, out double midFraction);
         int lo = QuantileRank(n, 0.025, out double loFraction);
         int hi = QuantileRank(n, 0.975, out double hiFraction);
         // Small ensembles can share ranks between the quantiles or reach the ends: the general path handles those.
         if (lo < 0 || lo + 1 >= mid || mid + 1 >= hi || hi + 1 > n - 1)
+        {
+            column.CopyTo(scratch);
             return (ArrayStatistics.QuantileCustomInplace(scratch, 0.5, QuantileDefinition.R7),
                     ArrayStatistics.QuantileCustomInplace(scratch, 0.025, QuantileDefinition.R7),
                     ArrayStatistics.QuantileCustomInplace(scratch, 0.975, QuantileDefinition.R7));
-        OrderStatistics.SelectRanks(scratch, [lo, lo + 1, mid, mid + 1, hi, hi + 1]);
-        return (Between(mid, midFraction), Between(lo, loFraction), Between(hi, hiFraction));
+        }
+        OrderStatistics.SelectRanks(column, [lo, lo + 1, mid, mid + 1, hi, hi + 1]);
+        return (Between(column, mid, midFraction), Between(column, lo, loFraction), Between(column, hi, hiFraction));
 
-        double Between(int rank, double fraction) => scratch[rank] + fraction * (scratch[rank + 1] - scratch[rank]);
+        static double Between(Span<double> v, int rank, double fraction) => v[rank] + fraction * (v[rank + 1] - v[rank]);
     }
 
     /// <summary>The lower of the two ranks (0-based) a type-7 quantile interpolates, and the fraction towards the upper, computed as <see cref="ArrayStatistics.QuantileCustomInplace(double[], double, QuantileDefinition)"/> does.</summary>

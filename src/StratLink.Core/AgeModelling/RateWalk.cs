@@ -42,36 +42,40 @@ internal sealed class RateWalk
     /// <summary>The curve through <paramref name="controls"/>' knots with a walked rate between and beyond them.</summary>
     public AgeDepthCurve Apply(AgeDepthCurve controls, Random rng)
     {
-        var z = controls.CompositeDepths;
-        var a = controls.AgesBP;
-        int k = z.Count;
-        var zs = new List<double>(k * StepsPerInterval + 2 * MaxExtrapolationSteps);
-        var ys = new List<double>(zs.Capacity);
+        var z = controls.DepthSpan;
+        var a = controls.AgeSpan;
+        int k = z.Length;
+        // The knots are counted first and written in place: a walked curve has thousands (a varve count's
+        // points each make one), and growing lists for them cost more than the walk itself.
+        int above = _extentTop < z[0] ? ExtrapolationSteps(z[0] - _extentTop, z[1] - z[0], out _) : 0;
+        int below = _extentBottom > z[k - 1] ? ExtrapolationSteps(_extentBottom - z[k - 1], z[k - 1] - z[k - 2], out _) : 0;
+        int count = above + 1 + below;
+        for (int s = 0; s + 1 < k; s++) count += StepsFor(z[s + 1] - z[s]);
+        var zs = new double[count];
+        var ys = new double[count];
 
-        // Above the top control, walked upwards from it, then reversed into depth order.
-        if (_extentTop < z[0])
-        {
-            Extrapolate(z[0], a[0], z[0] - _extentTop, -1, Rate(z, a, 0), z[1] - z[0], rng, zs, ys);
-            zs.Reverse();
-            ys.Reverse();
-        }
-        zs.Add(z[0]);
-        ys.Add(a[0]);
-        for (int s = 0; s + 1 < k; s++) Bridge(controls, s, rng, zs, ys);
-        if (_extentBottom > z[k - 1])
-            Extrapolate(z[k - 1], a[k - 1], _extentBottom - z[k - 1], +1, Rate(z, a, k - 2), z[k - 1] - z[k - 2], rng, zs, ys);
-        return new AgeDepthCurve([.. zs], [.. ys], z[0], z[k - 1], controls.Interpolation);
+        // Above the top control, walked upwards from it and written from the top control's knot upwards.
+        if (above > 0) Extrapolate(z[0], a[0], z[0] - _extentTop, -1, Rate(z, a, 0), z[1] - z[0], rng, zs, ys, above - 1, -1);
+        int at = above;
+        zs[at] = z[0];
+        ys[at++] = a[0];
+        for (int s = 0; s + 1 < k; s++) at = Bridge(controls, s, rng, zs, ys, at);
+        if (below > 0)
+            Extrapolate(z[k - 1], a[k - 1], _extentBottom - z[k - 1], +1, Rate(z, a, k - 2), z[k - 1] - z[k - 2], rng, zs, ys, at, +1);
+        return new AgeDepthCurve(zs, ys, z[0], z[k - 1], controls.Interpolation);
     }
 
-    private static double Rate(IReadOnlyList<double> z, IReadOnlyList<double> a, int segment) =>
+    private static double Rate(ReadOnlySpan<double> z, ReadOnlySpan<double> a, int segment) =>
         (a[segment + 1] - a[segment]) / (z[segment + 1] - z[segment]);
 
     private int StepsFor(double span) => (int)Math.Clamp(Math.Ceiling(span / _stepFloor - 1e-9), 1, StepsPerInterval);
 
-    /// <summary>Adds the knots after control knot <paramref name="s"/> up to and including knot s + 1.</summary>
-    private void Bridge(AgeDepthCurve controls, int s, Random rng, List<double> zs, List<double> ys)
+    /// <summary>Writes the knots after control knot <paramref name="s"/> up to and including knot s + 1 from index <paramref name="at"/>; returns the next index.</summary>
+    private int Bridge(AgeDepthCurve controls, int s, Random rng, double[] zs, double[] ys, int at)
     {
-        double z0 = controls.CompositeDepths[s], a0 = controls.AgesBP[s], z1 = controls.CompositeDepths[s + 1], a1 = controls.AgesBP[s + 1];
+        var z = controls.DepthSpan;
+        var a = controls.AgeSpan;
+        double z0 = z[s], a0 = a[s], z1 = z[s + 1], a1 = a[s + 1];
         // Sub-steps lie in segment s: the search starts there instead of bisecting all knots at every sub-step.
         int segment = s;
         int n = StepsFor(z1 - z0);
@@ -81,12 +85,12 @@ internal sealed class RateWalk
             for (int j = 1; j < n; j++)
             {
                 double zj = z0 + (z1 - z0) * j / n;
-                zs.Add(zj);
-                ys.Add(controls.AgeAtAscending(zj, ref segment, out _));
+                zs[at] = zj;
+                ys[at++] = controls.AgeAtAscending(zj, ref segment, out _);
             }
-            zs.Add(z1);
-            ys.Add(a1);
-            return;
+            zs[at] = z1;
+            ys[at++] = a1;
+            return at;
         }
         double sd = _variability / Math.Sqrt(n);
         Span<double> duration = n <= 256 ? stackalloc double[n] : new double[n];
@@ -104,31 +108,41 @@ internal sealed class RateWalk
         {
             cumulative += duration[j];
             double age = Math.Max(previous, Math.Min(a1, a0 + (a1 - a0) * cumulative / total));
-            zs.Add(z0 + (z1 - z0) * (j + 1) / n);
-            ys.Add(age);
+            zs[at] = z0 + (z1 - z0) * (j + 1) / n;
+            ys[at++] = age;
             previous = age;
         }
-        zs.Add(z1);
-        ys.Add(a1);
+        zs[at] = z1;
+        ys[at++] = a1;
+        return at;
+    }
+
+    /// <summary>Sub-steps beyond an end control over <paramref name="distance"/>, next to an interval of <paramref name="span"/>; <paramref name="h"/> their length.</summary>
+    private int ExtrapolationSteps(double distance, double span, out double h)
+    {
+        h = Math.Max(span / StepsFor(span), distance / MaxExtrapolationSteps);
+        int steps = (int)Math.Ceiling(distance / h - 1e-9);
+        h = distance / steps;
+        return steps;
     }
 
     /// <summary>
     /// Knots from (z0, a0) outwards over <paramref name="distance"/> in direction <paramref name="sign"/> (-1 up, +1
     /// down): the nearest interval's mean rate times exp of a walk with the interval's variance per unit depth.
+    /// Step j goes to index <paramref name="first"/> + <paramref name="stride"/> (j - 1), so the upward walk fills its knots in depth order.
     /// </summary>
     private void Extrapolate(double z0, double a0, double distance, int sign, double yearsPerUnit, double span, Random rng,
-        List<double> zs, List<double> ys)
+        double[] zs, double[] ys, int first, int stride)
     {
-        double h = Math.Max(span / StepsFor(span), distance / MaxExtrapolationSteps);
-        int steps = (int)Math.Ceiling(distance / h - 1e-9);
-        h = distance / steps;
+        int steps = ExtrapolationSteps(distance, span, out double h);
         double sd = _variability * Math.Sqrt(h / span), w = 0, age = a0;
         for (int j = 1; j <= steps; j++)
         {
             w += Normal.Sample(rng, 0, sd);
             age += sign * yearsPerUnit * Math.Exp(w) * h;
-            zs.Add(z0 + sign * j * h);
-            ys.Add(age);
+            int at = first + stride * (j - 1);
+            zs[at] = z0 + sign * j * h;
+            ys[at] = age;
         }
     }
 }

@@ -21,21 +21,28 @@ internal static class TieMisfitCheck
         var candidates = p.Markers
             .Where(m => m.Depths.Count(d => loaded.Tables.ContainsKey(d.CoreId)) >= 2)
             .ToList();
-        for (int i = 0; i < candidates.Count; i++)
+        // The leave-one-out alignments are independent: they run in parallel (each one's cores too, so the few
+        // cores of one alignment do not leave a worker idle), and are reported in marker order.
+        var results = new (AlignmentResult? Result, string? Failure)[candidates.Count];
+        int done = 0;
+        Parallel.For(0, candidates.Count, new ParallelOptions { CancellationToken = ct }, i =>
         {
-            ct.ThrowIfCancellationRequested();
             var m = candidates[i];
-            progress?.Report(new WorkProgress("checks: ties left out one at a time", (double)i / candidates.Count, m.Id));
             var without = p with
             {
                 Markers = p.Markers.Remove(m),
                 Ages = p.Ages.RemoveAll(a => a is CalendarAgeControl { Marker: var mk } && mk == m.Id),
             };
-            var result = AlignmentRuns.TryAlign(aligner, loaded, without, ct, out string? failure);
-            if (result is null)
+            results[i].Result = AlignmentRuns.TryAlign(aligner, loaded, without, ct, out results[i].Failure);
+            progress?.Report(new WorkProgress("checks: ties left out one at a time", (double)Interlocked.Increment(ref done) / candidates.Count, m.Id));
+        });
+        for (int i = 0; i < candidates.Count; i++)
+        {
+            var m = candidates[i];
+            if (results[i].Result is not { } result)
             {
                 r.Add(Severity.Note, CheckCodes.CheckNotRun,
-                    $"The tie check of marker {m.Id} did not run: aligning the cores without it failed ({failure}).",
+                    $"The tie check of marker {m.Id} did not run: aligning the cores without it failed ({results[i].Failure}).",
                     null, m.Id, null, $"markers[{m.Id}]");
                 continue;
             }

@@ -1,6 +1,7 @@
 using StratLink.AgeModelling;
 using StratLink.Alignment;
 using StratLink.Checks;
+using StratLink.Quantities;
 using StratLink.Workflows;
 
 namespace StratLink.Compositing;
@@ -84,11 +85,9 @@ public static class CompositeBuilder
             var med = new double[grid.Count];
             var lo = new double[grid.Count];
             var hi = new double[grid.Count];
-            for (int r = 0; r < grid.Count; r++)
-            {
-                if ((r & 1023) == 0) ct.ThrowIfCancellationRequested();
-                (med[r], lo[r], hi[r]) = ages.AgeAt(grid.DepthAt(r));
-            }
+            var depths = new CompositeDepth[grid.Count];
+            for (int r = 0; r < grid.Count; r++) depths[r] = grid.DepthAt(r);
+            ages.AgesAt(depths, med, lo, hi, ct);
             onComposite = new CompositeAges(med, lo, hi);
         }
         progress?.Report(new WorkProgress("composite", 1));

@@ -39,34 +39,53 @@ internal static class OrderStatistics
         SelectRanks(values[(pivot + 1)..], shifted);
     }
 
-    /// <summary>Moves the k-th smallest value (0-based) to index k, smaller ones before it, larger after (Hoare's selection).</summary>
-    private static double Select(Span<double> v, int k)
+    /// <summary>
+    /// Moves the k-th smallest value (0-based) to index k, smaller ones before it, larger after: the selection of
+    /// Floyd and Rivest (1975, Comm. ACM 18:173-175, Algorithm 489). Over long ranges it first selects within a small
+    /// sample around the expected place of rank k, so the pivot lands next to the answer and a pass or two settle it
+    /// (about n + min(k, n - k) comparisons against Hoare's 2n to 3.4n). The value found is the order statistic
+    /// itself, so any correct selection returns the same one to the bit.
+    /// </summary>
+    private static double Select(Span<double> v, int k) => FloydRivest(v, 0, v.Length - 1, k);
+
+    private static double FloydRivest(Span<double> v, int left, int right, int k)
     {
-        int left = 0, right = v.Length - 1;
         while (right > left)
         {
-            // Median of three as pivot keeps sorted and constant runs from degrading; deterministic.
-            int mid = left + ((right - left) >> 1);
-            double pivot = MedianOf3(v[left], v[mid], v[right]);
-            int i = left, j = right;
-            while (i <= j)
+            if (right - left > SampleAbove)
             {
-                while (v[i] < pivot) i++;
-                while (v[j] > pivot) j--;
-                if (i <= j)
-                {
-                    (v[i], v[j]) = (v[j], v[i]);
-                    i++;
-                    j--;
-                }
+                // Constants of the published algorithm: a sample of about n^(2/3) values, its bounds half a
+                // standard deviation of the sample rank beyond the place k is expected at.
+                double n = right - left + 1, i = k - left + 1, z = Math.Log(n);
+                double s = 0.5 * Math.Exp(2 * z / 3), sd = 0.5 * Math.Sqrt(z * s * (n - s) / n) * Math.Sign(i - n / 2);
+                int newLeft = Math.Max(left, (int)(k - i * s / n + sd));
+                int newRight = Math.Min(right, (int)(k + (n - i) * s / n + sd));
+                FloydRivest(v, newLeft, newRight, k);
             }
-            if (k <= j) right = j;
-            else if (k >= i) left = i;
-            else return v[k];
+            double t = v[k];
+            int a = left, b = right;
+            (v[left], v[k]) = (v[k], v[left]);
+            if (v[right] > t) (v[right], v[left]) = (v[left], v[right]);
+            while (a < b)
+            {
+                (v[a], v[b]) = (v[b], v[a]);
+                a++;
+                b--;
+                while (v[a] < t) a++;
+                while (v[b] > t) b--;
+            }
+            if (v[left] == t) (v[left], v[b]) = (v[b], v[left]);
+            else
+            {
+                b++;
+                (v[b], v[right]) = (v[right], v[b]);
+            }
+            if (b <= k) left = b + 1;
+            if (k <= b) right = b - 1;
         }
         return v[k];
     }
 
-    private static double MedianOf3(double a, double b, double c) =>
-        a < b ? (b < c ? b : Math.Max(a, c)) : (a < c ? a : Math.Max(b, c));
+    /// <summary>Ranges longer than this select a sample first (600 in the published algorithm).</summary>
+    private const int SampleAbove = 600;
 }

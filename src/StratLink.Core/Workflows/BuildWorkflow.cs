@@ -50,12 +50,22 @@ public static class BuildWorkflow
         var files = new List<string>();
         using (StageTimes.Measure("write"))
         {
-            files.AddRange(CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
-            foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
-                files.Add(AgesCsvWriter.WriteFile(directory, series));
-            if (result.Ages.Composite is { } compositeAges) files.Add(AgesCsvWriter.WriteFile(directory, compositeAges));
-            if (AgeFigures.Write(result.Ages, Path.Combine(directory, "figures")) is { } ageFigure) files.Add(ageFigure);
-            files.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
+            // The composite's files and the ages' are independent: written side by side, listed in this order
+            // (WhenAll waits for both and rethrows a failure unwrapped).
+            var composite = Task.Run(() => CompositeOutputs.WriteAll(result.Project, result.Composite, directory));
+            var ages = Task.Run(() =>
+            {
+                var written = new List<string>();
+                foreach (var series in result.Ages.Cores.Values.OrderBy(s => s.Id, StringComparer.Ordinal))
+                    written.Add(AgesCsvWriter.WriteFile(directory, series));
+                if (result.Ages.Composite is { } compositeAges) written.Add(AgesCsvWriter.WriteFile(directory, compositeAges));
+                if (AgeFigures.Write(result.Ages, Path.Combine(directory, "figures")) is { } ageFigure) written.Add(ageFigure);
+                written.Add(ChecksCsvWriter.WriteFile(directory, result.Findings, result.Project.Project.DepthUnit));
+                return written;
+            });
+            Task.WhenAll(composite, ages).GetAwaiter().GetResult();
+            files.AddRange(composite.Result);
+            files.AddRange(ages.Result);
         }
         var relative = files.Select(f => Path.GetRelativePath(directory, f).Replace('\\', '/')).Order(StringComparer.Ordinal).ToList();
         relative.Add("run.json");

@@ -29,4 +29,31 @@ public class OrderStatisticsTests
                 Assert.Equal(Statistics.PercentileSorted(sorted, p), OrderStatistics.PercentileInPlace((double[])values.Clone(), p));
         }
     }
+
+    [Fact]
+    public void Selection_of_long_ranges_equals_sorting()
+    {
+        // Past 600 values the selection first settles a sample around the rank (Floyd and Rivest 1975); whatever
+        // the path, every selected value must be the order statistic a full sort puts there.
+        var rng = new Random(11);
+        for (int trial = 0; trial < 120; trial++)
+        {
+            int n = 601 + rng.Next(4400);
+            var values = (trial % 4) switch
+            {
+                0 => Enumerable.Range(0, n).Select(_ => (double)rng.Next(7)).ToArray(),
+                1 => Enumerable.Range(0, n).Select(k => (double)k).ToArray(),
+                2 => Enumerable.Range(0, n).Select(k => (double)(n - k)).ToArray(),
+                _ => Enumerable.Range(0, n).Select(_ => rng.NextDouble() * 1e4 - 5e3).ToArray(),
+            };
+            var sorted = values.Order().ToArray();
+            int lo = (int)((n - 1) * 0.025), mid = (n - 1) / 2, hi = (int)((n - 1) * 0.975);
+            int[] ranks = [lo, lo + 1, mid, mid + 1, hi, hi + 1];
+            var selected = (double[])values.Clone();
+            OrderStatistics.SelectRanks(selected, ranks);
+            foreach (int r in ranks) Assert.Equal(sorted[r], selected[r]);
+            foreach (double p in new[] { 2.5, 50, 97.5 })
+                Assert.Equal(Statistics.PercentileSorted(sorted, p), OrderStatistics.PercentileInPlace((double[])values.Clone(), p));
+        }
+    }
 }
