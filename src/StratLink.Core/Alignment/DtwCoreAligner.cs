@@ -126,7 +126,8 @@ public static class DtwCoreAligner
             var g = segments[s];
             var o = g.Options(options, completion);
             double endBias = o.OpenEnd ? completion / temperature : 0; // the completion cost of the columns left after the end
-            using var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
+            var lattice = o.OpenBegin || o.OpenEnd ? AtOptimalEnds(slices[s], optimal[s], (int)Math.Ceiling(tau), o.OpenBegin, o.OpenEnd) : slices[s];
+            using var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, lattice, o, temperature, directions[s], endBias, ct);
             var rng = new Random(Seeds.Derive(options.Seed, core.CoreId, s));
             var drawn = new (int[] I, int[] J)[options.Ensemble];
             for (int e = 0; e < drawn.Length; e++)
@@ -145,6 +146,33 @@ public static class DtwCoreAligner
             if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
         return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);
+    }
+
+    /// <summary>
+    /// The band with its open first (last) row cut to the optimal path's cells there, widened to
+    /// <paramref name="cells"/> (one autocorrelation time, the scale of independent evidence) either
+    /// side of where the path starts (ends). Sampled at a temperature, an open end drifts into the
+    /// unmatched reference: the record it leaves out has one way of being skipped but many of being
+    /// matched, so paths that match it outnumber the one that skips it whatever its cost. The optimal
+    /// path has no such count and places the ends well; the ensemble keeps its ends near them.
+    /// </summary>
+    private static Band AtOptimalEnds(Band band, DtwPath path, int cells, bool openBegin, bool openEnd)
+    {
+        int rows = band.Rows;
+        var lo = band.Lo.ToArray();
+        var hi = band.Hi.ToArray();
+        void Cut(int row, int start)
+        {
+            int first = int.MaxValue, last = int.MinValue;
+            for (int k = 0; k < path.Length; k++)
+                if (path.I[k] == row) { first = Math.Min(first, path.J[k]); last = Math.Max(last, path.J[k]); }
+            if (first > last) return;
+            lo[row] = Math.Max(lo[row], Math.Min(first, start - cells));
+            hi[row] = Math.Min(hi[row], Math.Max(last, start + cells));
+        }
+        if (openBegin) Cut(0, path.J[0]);
+        if (openEnd) Cut(rows - 1, path.J[^1]);
+        return new Band(band.Columns, lo, hi);
     }
 
     private readonly record struct TieBox(int I, int J, int K);
