@@ -10,7 +10,9 @@ namespace StratLink.Checks;
 /// (<see cref="AlignmentScales.Site"/>): every core maps onto one composite, so any loop through it
 /// closes by construction; what can still disagree is the composite with the records themselves, so
 /// the mapping of A to C the site implies (C's mapping inverted after A's) is compared with a direct
-/// alignment of A to C alone (C as the reference, reference scale) over the part of A that C covers.
+/// alignment of A to C alone (C as the reference, reference scale) over the part of A that C covers,
+/// for each pair with C the longer core: a shorter record fits inside a longer one, while a longer
+/// one aligned to a shorter has most of its length with nothing to match.
 /// Only the part of A that the other cores overlap is compared (in the reference scale taken from the
 /// alignment with A as the reference, where B and C map onto the stretch of A they cover), less one
 /// grid step at each end; and points where a mapping's local rate ratio departs from its overall ratio
@@ -105,13 +107,16 @@ internal static class LoopClosureCheck
         const string stage = "checks: loop closure";
         var site = given?.Mappings ?? AlignmentRuns.TryAlign(aligner, loaded, p, ct, out _)?.Mappings;
         if (site is null) return;
-        // direct[c][a]: core a's depth to core c's depth, aligned to c alone.
+        double Length(string id) => loaded.Tables[id].Depths[^1] - loaded.Tables[id].Depths[0];
+        bool Longer(string c, string a) => Length(c) > Length(a) || Length(c) == Length(a) && cores.IndexOf(c) < cores.IndexOf(a);
+        // direct[c][a]: core a's depth to core c's depth, aligned to c alone; c longer than a.
         var direct = new Dictionary<string, IReadOnlyDictionary<string, MappingEnsemble>>(StringComparer.Ordinal);
-        for (int i = 0; i < cores.Count; i++)
+        var references = cores.Where(c => cores.Any(a => a != c && Longer(c, a))).ToList();
+        for (int i = 0; i < references.Count; i++)
         {
             ct.ThrowIfCancellationRequested();
-            string reference = cores[i];
-            progress?.Report(new WorkProgress(stage, (double)i / cores.Count, reference));
+            string reference = references[i];
+            progress?.Report(new WorkProgress(stage, (double)i / references.Count, reference));
             var pair = p with { Alignment = p.Alignment with { Reference = reference, Scale = AlignmentScales.Reference } };
             var result = AlignmentRuns.TryAlign(aligner, loaded, pair, ct, out string? failure);
             if (result is null)
@@ -133,7 +138,7 @@ internal static class LoopClosureCheck
             var spec = p.FindCore(a)!;
             int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
             double stepA = AlignmentRuns.GridStep(p, ta);
-            foreach (string c in cores.Where(c => c != a))
+            foreach (string c in cores.Where(c => c != a && Longer(c, a)))
             {
                 if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
                 var tc = loaded.Tables[c];
