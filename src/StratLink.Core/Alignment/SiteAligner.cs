@@ -130,8 +130,23 @@ internal static class SiteAligner
                 }
             }
         }
-        var values = new double[count * dims];
-        for (int x = 0; x < values.Length; x++) values[x] = n[x] > 0 ? sum[x] / n[x] : double.NaN;
-        return new PreparedSignals(id, top, step, count, signals, values);
+        // Rows no core has data at (a disturbed top, a gap at an end) are left off, so a core whose end
+        // is closed is matched to the first (last) recorded row rather than to missing cells above it.
+        int first = 0, last = count - 1;
+        while (first < last && !Recorded(first)) first++;
+        while (last > first && !Recorded(last)) last--;
+        var values = new double[(last - first + 1) * dims];
+        for (int x = 0; x < values.Length; x++)
+        {
+            int at = first * dims + x;
+            values[x] = n[at] > 0 ? sum[at] / n[at] : double.NaN;
+        }
+        return new PreparedSignals(id, top + first * step, step, last - first + 1, signals, values);
+
+        bool Recorded(int row)
+        {
+            for (int d = 0; d < dims; d++) if (n[row * dims + d] > 0) return true;
+            return false;
+        }
     }
 }
