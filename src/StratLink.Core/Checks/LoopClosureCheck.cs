@@ -12,7 +12,10 @@ namespace StratLink.Checks;
 /// the mapping of A to C the site implies (C's mapping inverted after A's) is compared with a direct
 /// alignment of A to C alone (C as the reference, reference scale) over the part of A that C covers,
 /// for each pair with C the longer core: a shorter record fits inside a longer one, while a longer
-/// one aligned to a shorter has most of its length with nothing to match.
+/// one aligned to a shorter has most of its length with nothing to match. Points whose two placements
+/// have a gap or disturbed interval at or between them (in C, or in A with the direct placement carried
+/// back through the site) are not compared: there the pair alone has nothing to align on, while the
+/// site bridges it with the other cores.
 /// Only the part of A that the other cores overlap is compared (in the reference scale taken from the
 /// alignment with A as the reference, where B and C map onto the stretch of A they cover), less one
 /// grid step at each end; and points where a mapping's local rate ratio departs from its overall ratio
@@ -142,6 +145,7 @@ internal static class LoopClosureCheck
             {
                 if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
                 var tc = loaded.Tables[c];
+                var specC = p.FindCore(c)!;
                 // The part of A that C covers on the composite.
                 double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
                 double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
@@ -152,6 +156,11 @@ internal static class LoopClosureCheck
                     double implied = sc.Median.ToCoreValue(sa.Median.ToCompositeValue(z));
                     if (!Regular(ac.Median, z, ta, factor) || !Regular(sa.Median, z, ta, factor) || !Regular(sc.Median, implied, tc, factor)) continue;
                     double d = ac.Median.ToCompositeValue(z);
+                    // Where C (or A) has no record (a gap, a disturbed stretch) at or between the two
+                    // placements, the pair's own alignment had nothing to tell them apart; the site
+                    // bridges it with the other cores.
+                    double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
+                    if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
                     double mismatch = Math.Abs(d - implied);
                     if (worst is null || mismatch > worst.Value.Mismatch) worst = (mismatch, a, c, z, d, implied);
                 }
@@ -178,6 +187,10 @@ internal static class LoopClosureCheck
                 : $"within {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} (typical tie uncertainty, at least one grid step)."),
             a, item, z, $"cores[{a}]");
     }
+
+    /// <summary>True when a gap or disturbed interval of <paramref name="core"/> meets <paramref name="lo"/>-<paramref name="hi"/> (project unit).</summary>
+    private static bool Unrecorded(CoreSpec core, double lo, double hi) =>
+        core.Gaps.Concat(core.Disturbed).Any(g => g.Top.In(g.Top.Unit) <= hi && g.Bottom.In(g.Top.Unit) >= lo);
 
     /// <summary>True when the mapping's rate ratio at <paramref name="depth"/> is within a factor of its ratio over the whole core.</summary>
     private static bool Regular(DepthMapping m, double depth, Tables.CoreTable core, double factor)
