@@ -156,7 +156,6 @@ public static class CoreAligner
         }
         for (int k = 0; k < cores.Count; k++)
             if (!members.Any(m => m.CoreId == cores[k].Id)) findings.AddRange(coreFindings[k]);
-        using var stage = StageTimes.Measure("align");
         var (rounds, settled) = SiteAligner.Refine(refSignals, members, result, diag, DtwCoreOptions.From(p.Alignment, seed), p.DepthUnit, findings, ct);
         if (!settled)
             findings.Add(new Finding

@@ -1,5 +1,6 @@
 using StratLink.Checks;
 using StratLink.Quantities;
+using StratLink.Workflows;
 
 namespace StratLink.Alignment;
 
@@ -69,8 +70,11 @@ internal static class SiteAligner
             others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
             var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step).Select(c.Signals.Signals);
             var local = new FindingList();
-            var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct);
-            next[k] = (m, d, local);
+            using (StageTimes.Measure("align"))
+            {
+                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct);
+                next[k] = (m, d, local);
+            }
         });
         return next;
     }
