@@ -43,6 +43,9 @@ public static class CoreAligner
             refSignals = StageTimes.Measure("prepare", () => SignalPreparation.Prepare(refTable, Unusable(refSpec), CandidateSignals(refSpec, refTable, settings), step, settings));
         }
 
+        // The site scale starts from the optimal mappings to the reference and samples its ensemble
+        // only against the settled stack, so the first pass asks for none.
+        bool site = settings.Method == AlignmentMethods.Dtw && settings.Scale == AlignmentScales.Site && cores.Count >= 2;
         int done = 0;
         progress?.Report(new WorkProgress("alignment", 0));
         Parallel.For(0, cores.Count, new ParallelOptions { CancellationToken = ct }, k =>
@@ -50,7 +53,7 @@ public static class CoreAligner
             var spec = cores[k];
             var local = coreFindings[k];
             (mappings[k], diagnostics[k]) = settings.Method == AlignmentMethods.Dtw
-                ? AlignByDtw(project, spec, refSignals!, step, network, seed, local, ct)
+                ? AlignByDtw(project, spec, refSignals!, step, network, seed, site ? 0 : settings.Ensemble, local, ct)
                 : ByTies(p, spec, network, project.Tables, local);
             int now = Interlocked.Increment(ref done);
             progress?.Report(new WorkProgress("alignment", (double)now / cores.Count, spec.Id));
@@ -66,7 +69,7 @@ public static class CoreAligner
             result[cores[k].Id] = mappings[k]!;
             diag[cores[k].Id] = diagnostics[k]!;
         }
-        if (settings.Method == AlignmentMethods.Dtw && settings.Scale == AlignmentScales.Site)
+        if (site)
             AlignToSite(project, cores, refSignals!, step, network, seed, result, diag, coreFindings, findings, ct);
         else
             foreach (var f in coreFindings) findings.AddRange(f);
@@ -74,7 +77,7 @@ public static class CoreAligner
     }
 
     private static (MappingEnsemble, CoreAlignmentDiagnostics) AlignByDtw(LoadedProject project, CoreSpec spec, PreparedSignals refSignals, double step,
-        TieNetwork network, int seed, FindingList findings, CancellationToken ct)
+        TieNetwork network, int seed, int ensemble, FindingList findings, CancellationToken ct)
     {
         var p = project.Project;
         var settings = p.Alignment;
@@ -96,7 +99,7 @@ public static class CoreAligner
             if (ties.Count == 0)
                 findings.Add(new Finding { Severity = Severity.Note, Code = "alignment.dtw-only", Core = spec.Id, Message = $"core {spec.Id} shares no marker with the reference or a tied core; it is aligned by its signals alone" });
             using (StageTimes.Measure("align"))
-                return DtwCoreAligner.Align(coreSignals, refSignals.Select(names), [.. weights], ties, DtwCoreOptions.From(settings, seed), p.DepthUnit, findings, ct);
+                return DtwCoreAligner.Align(coreSignals, refSignals.Select(names), [.. weights], ties, DtwCoreOptions.From(settings, seed) with { Ensemble = ensemble }, p.DepthUnit, findings, ct);
         }
         catch (Exception e) when (e is InvalidOperationException or ArgumentException)
         {
@@ -139,7 +142,16 @@ public static class CoreAligner
         }
         if (members.Count < 2)
         {
-            foreach (var f in coreFindings) findings.AddRange(f);
+            // Too few cores aligned by dtw for a stack: they keep their alignment to the reference, now with the ensemble.
+            for (int k = 0; k < cores.Count; k++)
+            {
+                if (members.Any(m => m.CoreId == cores[k].Id))
+                {
+                    coreFindings[k] = [];
+                    (result[cores[k].Id], diag[cores[k].Id]) = AlignByDtw(project, cores[k], refSignals, step, network, seed, p.Alignment.Ensemble, coreFindings[k], ct);
+                }
+                findings.AddRange(coreFindings[k]);
+            }
             return;
         }
         for (int k = 0; k < cores.Count; k++)

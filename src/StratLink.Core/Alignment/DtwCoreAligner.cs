@@ -43,7 +43,7 @@ public static class DtwCoreAligner
         int n = core.Count, m = reference.Count;
         var boxes = TieBoxes(core, reference, ties, findings);
         var resolution = new MatchResolution(core, unpadded, boxes.Select(b => core.DepthAt(b.I)));
-        options = ResolveOpenEnds(options, boxes, n, m, unit);
+        options = ResolveOpenEnds(options, boxes, n, m, unit, overhang);
         var centre = CentreLine(boxes, n, m, options, unit);
         (core, reference) = StandardiseOverOverlap(core, reference, centre, recorded0, recorded1, options.RobustStandardise);
         var cost = new SignalCost(core.Values, reference.Values, weights, 0);
@@ -77,17 +77,26 @@ public static class DtwCoreAligner
             }
         });
         SolveSegments(completion);
-        if (completion > 0 && (options.OpenBegin == true || options.OpenEnd == true))
+        bool open = completion > 0 && (options.OpenBegin == true || options.OpenEnd == true);
+        if (open || overhang.Any)
         {
-            // The neutral level (median cost along the straight-line-ties mapping) exceeds what a good
-            // match costs, so unmatched reference would look dear and the path would run along it;
-            // solve again with the cost per unit weight of the path just found.
-            double weight = 0;
-            for (int s = 0; s < segments.Count; s++)
-                weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
             // Where the path runs through padding beyond the reference, those cells cost the neutral
             // level and would raise the path's mean: take the mean over the cells it compares.
-            completion = Math.Min(completion, overhang.Any ? ComparedMean(cost, optimal, segments) : optimal.Sum(p => p.Distance) / weight);
+            double matched = ComparedMean(cost, optimal, segments);
+            if (open)
+            {
+                // The neutral level (median cost along the straight-line-ties mapping) exceeds what a good
+                // match costs, so unmatched reference would look dear and the path would run along it;
+                // solve again with the cost per unit weight of the path just found.
+                double weight = 0;
+                for (int s = 0; s < segments.Count; s++)
+                    weight += options.Pattern.Normalisation == StepNormalisation.NPlusM ? optimal[s].I[^1] - optimal[s].I[0] + optimal[s].J[^1] - optimal[s].J[0] + 2 : optimal[s].Length;
+                completion = Math.Min(completion, overhang.Any ? matched : optimal.Sum(p => p.Distance) / weight);
+            }
+            // For the same reason, padding at the neutral level would cost more per row than running
+            // the core's rows down the reference's last recorded column (a squeeze onto its base):
+            // padded cells cost what the path's matches cost, so the path leaves where they stop.
+            if (overhang.Any && matched < cost.Neutral) cost = cost.WithNeutral(matched);
             SolveSegments(completion);
         }
 
@@ -130,7 +139,10 @@ public static class DtwCoreAligner
             var g = segments[s];
             var o = g.Options(options, completion);
             double endBias = o.OpenEnd ? completion / temperature : 0; // the completion cost of the columns left after the end
-            using var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, slices[s], o, temperature, directions[s], endBias, ct);
+            var lattice = o.OpenBegin || o.OpenEnd || overhang.Any
+                ? NearOptimalWhereUnmatched(slices[s], optimal[s], (int)Math.Ceiling(tau), o.OpenBegin, o.OpenEnd, recorded0 - g.C0, recorded1 - g.C0)
+                : slices[s];
+            using var sampler = new PathSampler<SignalCost>(cost.At(g.R0, g.C0), options.Pattern, lattice, o, temperature, directions[s], endBias, ct);
             var rng = new Random(Seeds.Derive(options.Seed, core.CoreId, s));
             var drawn = new (int[] I, int[] J)[options.Ensemble];
             for (int e = 0; e < drawn.Length; e++)
@@ -149,6 +161,42 @@ public static class DtwCoreAligner
             if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
         return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);
+    }
+
+    /// <summary>
+    /// The band cut, where nothing is matched, to the optimal path's cells widened by
+    /// <paramref name="cells"/> (one autocorrelation time, the scale of independent evidence) either
+    /// side: in an open first (last) row, and in the padding beyond the reference's recorded columns
+    /// <paramref name="recorded0"/>-<paramref name="recorded1"/> (band columns). Sampled at a
+    /// temperature, a path drifts into a stretch where every path costs alike: the unmatched
+    /// reference before an open end has one way of being skipped but many of being matched, and the
+    /// padding many ways of being crossed, so paths that spend cells there outnumber those that do
+    /// not whatever the cost (the entropy term of a free energy). The optimal path has no such count
+    /// and places the ends and the exit from the record well; the ensemble keeps near it there.
+    /// </summary>
+    private static Band NearOptimalWhereUnmatched(Band band, DtwPath path, int cells, bool openBegin, bool openEnd, int recorded0, int recorded1)
+    {
+        int rows = band.Rows;
+        var lo = band.Lo.ToArray();
+        var hi = band.Hi.ToArray();
+        var first = new int[rows];
+        var last = new int[rows];
+        Array.Fill(first, int.MaxValue);
+        Array.Fill(last, int.MinValue);
+        for (int k = 0; k < path.Length; k++)
+        {
+            first[path.I[k]] = Math.Min(first[path.I[k]], path.J[k]);
+            last[path.I[k]] = Math.Max(last[path.I[k]], path.J[k]);
+        }
+        for (int i = 0; i < rows; i++)
+        {
+            if (first[i] > last[i]) continue;
+            if (lo[i] < recorded0) lo[i] = Math.Max(lo[i], Math.Min(recorded0, first[i] - cells));
+            if (hi[i] > recorded1) hi[i] = Math.Min(hi[i], Math.Max(recorded1, last[i] + cells));
+        }
+        if (openBegin && first[0] <= last[0]) (lo[0], hi[0]) = (Math.Max(lo[0], Math.Min(first[0], path.J[0] - cells)), Math.Min(hi[0], Math.Max(last[0], path.J[0] + cells)));
+        if (openEnd && first[^1] <= last[^1]) (lo[^1], hi[^1]) = (Math.Max(lo[^1], Math.Min(first[^1], path.J[^1] - cells)), Math.Min(hi[^1], Math.Max(last[^1], path.J[^1] + cells)));
+        return new Band(band.Columns, lo, hi);
     }
 
     private readonly record struct TieBox(int I, int J, int K);
@@ -187,8 +235,14 @@ public static class DtwCoreAligner
     /// <summary>
     /// Auto open ends: a core whose ties place its top (bottom) more than 1% of the reference's
     /// length inside the reference has lost that part (or is shorter); without ties, ends are closed.
+    /// An end the reference was padded at is closed at the padded corner: there the reference's own
+    /// end lies inside the core, so all of the recorded reference is to be matched and the core is
+    /// the one left over. Any path through the padding costs the same (the neutral level per unit of
+    /// weight), so the path leaves the record where the signals stop matching; left open, each padded
+    /// column skipped would cost the (lower) completion cost instead, and the path would squeeze the
+    /// core's rows onto the last recorded columns to skip them.
     /// </summary>
-    private static DtwCoreOptions ResolveOpenEnds(DtwCoreOptions o, List<TieBox> boxes, int n, int m, DepthUnit unit)
+    private static DtwCoreOptions ResolveOpenEnds(DtwCoreOptions o, List<TieBox> boxes, int n, int m, DepthUnit unit, CoreOverhang overhang)
     {
         if (o.OpenBegin is not null && o.OpenEnd is not null) return o;
         bool begin = false, end = false;
@@ -196,8 +250,8 @@ public static class DtwCoreAligner
         {
             var line = TieNetwork.StraightLines("grid", unit, boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList(), 0, n - 1);
             double margin = Math.Max(2, 0.01 * m);
-            begin = line.ToCompositeValue(0) > margin;
-            end = line.ToCompositeValue(n - 1) < m - 1 - margin;
+            begin = overhang.Top == 0 && line.ToCompositeValue(0) > margin;
+            end = overhang.Bottom == 0 && line.ToCompositeValue(n - 1) < m - 1 - margin;
         }
         return o with { OpenBegin = o.OpenBegin ?? begin, OpenEnd = o.OpenEnd ?? end };
     }

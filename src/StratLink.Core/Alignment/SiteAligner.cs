@@ -1,5 +1,6 @@
 using StratLink.Checks;
 using StratLink.Quantities;
+using StratLink.Workflows;
 
 namespace StratLink.Alignment;
 
@@ -28,46 +29,73 @@ internal static class SiteAligner
     /// <summary>One core taking part: its prepared signals (signal names of the reference's list), weights, ties.</summary>
     public sealed record Member(string CoreId, PreparedSignals Signals, double[] Weights, IReadOnlyList<TiePoint> Ties);
 
-    /// <summary>Refines <paramref name="mappings"/> in place; returns the rounds run and whether the mappings settled.</summary>
+    /// <summary>
+    /// Refines <paramref name="mappings"/> (the optimal mappings to the reference) in place: rounds of
+    /// optimal paths only until they settle (or <see cref="MaxRounds"/>), then one round against the
+    /// settled stack that also samples <paramref name="options"/>' ensemble. Returns the refinement
+    /// rounds run and whether they settled.
+    /// </summary>
     public static (int Rounds, bool Settled) Refine(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings,
         Dictionary<string, CoreAlignmentDiagnostics> diagnostics, DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct)
     {
-        double step = reference.Step;
-        var parallel = new ParallelOptions { CancellationToken = ct };
-        for (int round = 1; round <= MaxRounds; round++)
+        var optimalOnly = options with { Ensemble = 0 };
+        int rounds = 0;
+        bool settled = false;
+        var last = Array.Empty<(MappingEnsemble, CoreAlignmentDiagnostics, FindingList Findings)>();
+        while (!settled && rounds < MaxRounds)
         {
-            var current = mappings.ToDictionary(kv => kv.Key, kv => kv.Value.Median, StringComparer.Ordinal);
-            var next = new (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[members.Count];
-            Parallel.For(0, members.Count, parallel, k =>
+            rounds++;
+            last = Round(reference, members, mappings, optimalOnly, unit, ct);
+            settled = Apply(members, mappings, diagnostics, last, rounds) <= reference.Step;
+        }
+        if (options.Ensemble > 0)
+        {
+            last = Round(reference, members, mappings, options, unit, ct);
+            Apply(members, mappings, diagnostics, last, rounds);
+        }
+        foreach (var n in last) findings.AddRange(n.Findings);
+        return (rounds, settled);
+    }
+
+    /// <summary>Every member aligned to the stack of all the others as <paramref name="mappings"/> place them (their medians).</summary>
+    private static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[] Round(PreparedSignals reference, IReadOnlyList<Member> members,
+        Dictionary<string, MappingEnsemble> mappings, DtwCoreOptions options, DepthUnit unit, CancellationToken ct)
+    {
+        var current = mappings.ToDictionary(kv => kv.Key, kv => kv.Value.Median, StringComparer.Ordinal);
+        var next = new (MappingEnsemble, CoreAlignmentDiagnostics, FindingList)[members.Count];
+        Parallel.For(0, members.Count, new ParallelOptions { CancellationToken = ct }, k =>
+        {
+            var c = members[k];
+            var others = new List<(PreparedSignals, DepthMapping)> { (reference, current[reference.CoreId]) };
+            others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
+            var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step).Select(c.Signals.Signals);
+            var local = new FindingList();
+            using (StageTimes.Measure("align"))
             {
-                var c = members[k];
-                var others = new List<(PreparedSignals, DepthMapping)> { (reference, current[reference.CoreId]) };
-                others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
-                var stack = Stack(reference.CoreId, reference.Signals, others, step).Select(c.Signals.Signals);
-                var local = new FindingList();
                 var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct);
                 next[k] = (m, d, local);
-            });
-            var shifts = new List<double>();
-            for (int k = 0; k < members.Count; k++)
-            {
-                var c = members[k];
-                var old = current[c.CoreId];
-                var now = next[k].Mapping.Median;
-                for (int i = 0; i < c.Signals.Count; i++)
-                    shifts.Add(Math.Abs(now.ToCompositeValue(c.Signals.DepthAt(i)) - old.ToCompositeValue(c.Signals.DepthAt(i))));
-                mappings[c.CoreId] = next[k].Mapping;
-                diagnostics[c.CoreId] = next[k].Diagnostics with { SiteRounds = round };
             }
-            shifts.Sort();
-            double moved = Statistics.PercentileSorted(shifts.ToArray(), SettledPercentile);
-            if (moved <= step || round == MaxRounds)
-            {
-                foreach (var n in next) findings.AddRange(n.Findings);
-                return (round, moved <= step);
-            }
+        });
+        return next;
+    }
+
+    /// <summary>Takes a round's mappings; returns the <see cref="SettledPercentile"/> of the samples' shifts.</summary>
+    private static double Apply(IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Dictionary<string, CoreAlignmentDiagnostics> diagnostics,
+        (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[] next, int round)
+    {
+        var shifts = new List<double>();
+        for (int k = 0; k < members.Count; k++)
+        {
+            var c = members[k];
+            var old = mappings[c.CoreId].Median;
+            var now = next[k].Mapping.Median;
+            for (int i = 0; i < c.Signals.Count; i++)
+                shifts.Add(Math.Abs(now.ToCompositeValue(c.Signals.DepthAt(i)) - old.ToCompositeValue(c.Signals.DepthAt(i))));
+            mappings[c.CoreId] = next[k].Mapping;
+            diagnostics[c.CoreId] = next[k].Diagnostics with { SiteRounds = round };
         }
-        return (MaxRounds, false);
+        shifts.Sort();
+        return Statistics.PercentileSorted(shifts.ToArray(), SettledPercentile);
     }
 
     /// <summary>
@@ -106,8 +134,23 @@ internal static class SiteAligner
                 }
             }
         }
-        var values = new double[count * dims];
-        for (int x = 0; x < values.Length; x++) values[x] = n[x] > 0 ? sum[x] / n[x] : double.NaN;
-        return new PreparedSignals(id, top, step, count, signals, values);
+        // Rows no core has data at (a disturbed top, a gap at an end) are left off, so a core whose end
+        // is closed is matched to the first (last) recorded row rather than to missing cells above it.
+        int first = 0, last = count - 1;
+        while (first < last && !Recorded(first)) first++;
+        while (last > first && !Recorded(last)) last--;
+        var values = new double[(last - first + 1) * dims];
+        for (int x = 0; x < values.Length; x++)
+        {
+            int at = first * dims + x;
+            values[x] = n[at] > 0 ? sum[at] / n[at] : double.NaN;
+        }
+        return new PreparedSignals(id, top + first * step, step, last - first + 1, signals, values);
+
+        bool Recorded(int row)
+        {
+            for (int d = 0; d < dims; d++) if (n[row * dims + d] > 0) return true;
+            return false;
+        }
     }
 }

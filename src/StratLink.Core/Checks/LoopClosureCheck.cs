@@ -5,16 +5,26 @@ using StratLink.Workflows;
 namespace StratLink.Checks;
 
 /// <summary>
-/// Loop closure with three or more cores: align once with each core as the reference, then compare the
-/// direct mapping A to C with A to B to C at A's samples. Only the part of A that B and C overlap is
-/// compared, taken from the alignment with A as the reference (where B and C map onto the stretch of A
-/// they cover), less one grid step at each end; and points where a mapping's local rate ratio departs
-/// from its overall ratio by more than <see cref="CheckSettings.RateJumpFactor"/> are skipped: that is how
-/// a mapping looks where it runs off the end of the shorter core (squeezed onto the reference's end, or
-/// stretched along it), where there is nothing to compare. Consistent
-/// alignments close the loop; the worst mismatch and where it is are reported, as a warning when it
-/// exceeds <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over
-/// markers, at least one grid step of C), else as a note.
+/// Loop closure with three or more cores. Reference scale: align once with each core as the reference,
+/// then compare the direct mapping A to C with A to B to C at A's samples. Site scale
+/// (<see cref="AlignmentScales.Site"/>): every core maps onto one composite, so any loop through it
+/// closes by construction; what can still disagree is the composite with the records themselves, so
+/// the mapping of A to C the site implies (C's mapping inverted after A's) is compared with a direct
+/// alignment of A to C alone (C as the reference, reference scale) over the part of A that C covers,
+/// for each pair with C the longer core: a shorter record fits inside a longer one, while a longer
+/// one aligned to a shorter has most of its length with nothing to match. Points whose two placements
+/// have a gap or disturbed interval at or between them (in C, or in A with the direct placement carried
+/// back through the site) are not compared: there the pair alone has nothing to align on, while the
+/// site bridges it with the other cores.
+/// Only the part of A that the other cores overlap is compared (in the reference scale taken from the
+/// alignment with A as the reference, where B and C map onto the stretch of A they cover), less one
+/// grid step at each end; and points where a mapping's local rate ratio departs from its overall ratio
+/// by more than <see cref="CheckSettings.RateJumpFactor"/> are skipped: that is how a mapping looks
+/// where it runs off the end of the shorter core (squeezed onto the reference's end, or stretched
+/// along it), where there is nothing to compare. Consistent alignments close the loop; the worst
+/// mismatch and where it is are reported, as a warning when it exceeds
+/// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
+/// at least one grid step of C), else as a note.
 /// </summary>
 internal static class LoopClosureCheck
 {
@@ -27,6 +37,11 @@ internal static class LoopClosureCheck
         var p = r.Project;
         var cores = p.Cores.Select(c => c.Id).Where(id => loaded.Tables.TryGetValue(id, out var t) && t.Count > 1).ToList();
         if (cores.Count < 3) return;
+        if (p.Alignment.Method == AlignmentMethods.Dtw && p.Alignment.Scale == AlignmentScales.Site)
+        {
+            RunOnSite(r, loaded, given, aligner, cores, progress, ct);
+            return;
+        }
 
         // maps[b][a]: core a's depth to core b's depth (alignment with b as the reference).
         var maps = new Dictionary<string, IReadOnlyDictionary<string, MappingEnsemble>>(StringComparer.Ordinal);
@@ -82,19 +97,100 @@ internal static class LoopClosureCheck
             }
         }
         if (worst is not { } w) return;
+        Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
+            $"Mapping core {w.A} to {w.C} directly and through {w.B} differs by {r.Depth(w.Mismatch)} at most, at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Direct)} in {w.C} directly, {r.Depth(w.Via)} through {w.B}); ",
+            $"{w.A}/{w.B}/{w.C}");
+    }
 
+    /// <summary>Site scale: each pair's mapping through the one composite against a direct alignment of the pair.</summary>
+    private static void RunOnSite(CheckReporter r, LoadedProject loaded, AlignmentResult? given, Func<LoadedProject, CancellationToken, AlignmentResult> aligner,
+        List<string> cores, IProgress<WorkProgress>? progress, CancellationToken ct)
+    {
+        var p = r.Project;
+        const string stage = "checks: loop closure";
+        var site = given?.Mappings ?? AlignmentRuns.TryAlign(aligner, loaded, p, ct, out _)?.Mappings;
+        if (site is null) return;
+        double Length(string id) => loaded.Tables[id].Depths[^1] - loaded.Tables[id].Depths[0];
+        bool Longer(string c, string a) => Length(c) > Length(a) || Length(c) == Length(a) && cores.IndexOf(c) < cores.IndexOf(a);
+        // direct[c][a]: core a's depth to core c's depth, aligned to c alone; c longer than a.
+        var direct = new Dictionary<string, IReadOnlyDictionary<string, MappingEnsemble>>(StringComparer.Ordinal);
+        var references = cores.Where(c => cores.Any(a => a != c && Longer(c, a))).ToList();
+        for (int i = 0; i < references.Count; i++)
+        {
+            ct.ThrowIfCancellationRequested();
+            string reference = references[i];
+            progress?.Report(new WorkProgress(stage, (double)i / references.Count, reference));
+            var pair = p with { Alignment = p.Alignment with { Reference = reference, Scale = AlignmentScales.Reference } };
+            var result = AlignmentRuns.TryAlign(aligner, loaded, pair, ct, out string? failure);
+            if (result is null)
+            {
+                r.Add(Severity.Note, CheckCodes.CheckNotRun,
+                    $"The loop-closure check did not run: aligning the cores to {reference} failed ({failure}).", reference, null, null, "alignment.reference");
+                return;
+            }
+            direct[reference] = result.Mappings;
+        }
+        progress?.Report(new WorkProgress(stage, 1));
+
+        (double Mismatch, string A, string C, double Z, double Direct, double Implied)? worst = null;
+        double factor = p.Checks.RateJumpFactor;
+        foreach (string a in cores)
+        {
+            if (!site.TryGetValue(a, out var sa)) continue;
+            var ta = loaded.Tables[a];
+            var spec = p.FindCore(a)!;
+            int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
+            double stepA = AlignmentRuns.GridStep(p, ta);
+            foreach (string c in cores.Where(c => c != a && Longer(c, a)))
+            {
+                if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
+                var tc = loaded.Tables[c];
+                var specC = p.FindCore(c)!;
+                // The part of A that C covers on the composite.
+                double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
+                double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
+                for (int k = 0; k < ta.Count; k += stride)
+                {
+                    double z = ta.Depths[k];
+                    if (z < lo || z > hi || spec.IsUnusable(z)) continue;
+                    double implied = sc.Median.ToCoreValue(sa.Median.ToCompositeValue(z));
+                    if (!Regular(ac.Median, z, ta, factor) || !Regular(sa.Median, z, ta, factor) || !Regular(sc.Median, implied, tc, factor)) continue;
+                    double d = ac.Median.ToCompositeValue(z);
+                    // Where C (or A) has no record (a gap, a disturbed stretch) at or between the two
+                    // placements, the pair's own alignment had nothing to tell them apart; the site
+                    // bridges it with the other cores.
+                    double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
+                    if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
+                    double mismatch = Math.Abs(d - implied);
+                    if (worst is null || mismatch > worst.Value.Mismatch) worst = (mismatch, a, c, z, d, implied);
+                }
+            }
+        }
+        if (worst is not { } w) return;
+        Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
+            $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone differs by {r.Depth(w.Mismatch)} at most, at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly); ",
+            $"{w.A}/{w.C}");
+    }
+
+    private static void Report(CheckReporter r, LoadedProject loaded, double mismatch, string a, string c, double z, string what, string item)
+    {
+        var p = r.Project;
         var uncertainties = p.Markers.Select(m => m.Uncertainty).Order().ToArray();
         double typical = uncertainties.Length == 0 ? 0 : Statistics.PercentileSorted(uncertainties, 50);
-        double sigma = Math.Max(typical, AlignmentRuns.GridStep(p, loaded.Tables[w.C]));
+        double sigma = Math.Max(typical, AlignmentRuns.GridStep(p, loaded.Tables[c]));
         double limit = p.Checks.TieMisfitSigmas * sigma;
-        bool bad = w.Mismatch > limit;
+        bool bad = mismatch > limit;
         r.Add(bad ? Severity.Warning : Severity.Note, CheckCodes.LoopClosure,
-            $"Mapping core {w.A} to {w.C} directly and through {w.B} differs by {r.Depth(w.Mismatch)} at most, at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Direct)} in {w.C} directly, {r.Depth(w.Via)} through {w.B}); "
+            what
             + (bad
                 ? $"that is more than {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} (typical tie uncertainty, at least one grid step), so the alignments are not consistent there."
                 : $"within {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} (typical tie uncertainty, at least one grid step)."),
-            w.A, $"{w.A}/{w.B}/{w.C}", w.Z, $"cores[{w.A}]");
+            a, item, z, $"cores[{a}]");
     }
+
+    /// <summary>True when a gap or disturbed interval of <paramref name="core"/> meets <paramref name="lo"/>-<paramref name="hi"/> (project unit).</summary>
+    private static bool Unrecorded(CoreSpec core, double lo, double hi) =>
+        core.Gaps.Concat(core.Disturbed).Any(g => g.Top.In(g.Top.Unit) <= hi && g.Bottom.In(g.Top.Unit) >= lo);
 
     /// <summary>True when the mapping's rate ratio at <paramref name="depth"/> is within a factor of its ratio over the whole core.</summary>
     private static bool Regular(DepthMapping m, double depth, Tables.CoreTable core, double factor)

@@ -9,7 +9,9 @@ namespace StratLink.Checks;
 /// The marker's depth in one core (the reference core when it holds M, else the first core listed for M)
 /// is carried through the mapping into each other core holding M; a tie whose carried depth lies more
 /// than <see cref="CheckSettings.TieMisfitSigmas"/> tie uncertainties from the given depth is reported.
-/// The uncertainty has a floor of one grid step (<see cref="AlignmentRuns.GridStep"/>).
+/// The uncertainty has a floor of one grid step (<see cref="AlignmentRuns.GridStep"/>). The cores are
+/// aligned to the reference alone (reference scale) even when the project uses the site scale: the
+/// signals' say on one tie does not need the site's rounds, run again for every marker left out.
 /// </summary>
 internal static class TieMisfitCheck
 {
@@ -32,6 +34,7 @@ internal static class TieMisfitCheck
             {
                 Markers = p.Markers.Remove(m),
                 Ages = p.Ages.RemoveAll(a => a is CalendarAgeControl { Marker: var mk } && mk == m.Id),
+                Alignment = p.Alignment with { Scale = AlignmentScales.Reference },
             };
             results[i].Result = AlignmentRuns.TryAlign(aligner, loaded, without, ct, out results[i].Failure);
             progress?.Report(new WorkProgress("checks: ties left out one at a time", (double)Interlocked.Increment(ref done) / candidates.Count, m.Id));

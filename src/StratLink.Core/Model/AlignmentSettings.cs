@@ -51,11 +51,12 @@ public sealed record AlignmentSettings
     public int? Seed { get; init; }
 
     /// <summary>
-    /// <c>reference</c> (default): every core is aligned to the reference core only; <c>site</c>: with
-    /// three or more cores aligned by dtw, every core is then aligned again to the stack of all the
-    /// others until the mappings settle. Either way composite depth is the reference's depth where it has data.
+    /// <c>site</c> (default): with three or more cores aligned by dtw, every core is aligned again to the
+    /// stack of all the others until the mappings settle, so all cores map onto one composite;
+    /// <c>reference</c>: every core is aligned to the reference core only. With two cores both are the
+    /// same. Either way composite depth is the reference's depth where it has data.
     /// </summary>
-    public string Scale { get; init; } = AlignmentScales.Reference;
+    public string Scale { get; init; } = AlignmentScales.Site;
 }
 
 public static class AlignmentScales

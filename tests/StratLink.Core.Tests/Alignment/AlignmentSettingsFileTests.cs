@@ -32,13 +32,13 @@ public class AlignmentSettingsFileTests
               open_begin: true
               open_end: auto
               seed: 99
-              scale: site
+              scale: reference
             """.Replace("\n    ", "\n  ");
         var doc = ProjectReader.Parse(text, "p.yaml");
         Assert.False(doc.Problems.HasErrors, string.Join("\n", doc.Problems));
         var a = doc.Project!.Alignment;
         Assert.Equal(("asymmetric", 0.5, "robust", true, true, 0.25, true, true, 99), (a.Pattern, a.Step!.Value, a.Standardise, a.Derivative, a.Detrend, a.RatePenalty, a.OpenBegin!.Value, a.OpenEnd is null, a.Seed!.Value));
-        Assert.Equal(AlignmentScales.Site, a.Scale);
+        Assert.Equal(AlignmentScales.Reference, a.Scale);
         var again = ProjectReader.Parse(ProjectWriter.ToYaml(doc.Project), "p.yaml");
         Assert.False(again.Problems.HasErrors, string.Join("\n", again.Problems));
         Assert.Equal(a, again.Project!.Alignment);
@@ -47,6 +47,7 @@ public class AlignmentSettingsFileTests
         foreach (string key in new[] { "pattern", "step:", "standardise", "derivative", "detrend", "rate_penalty", "open_begin", "open_end", "seed", "scale" })
             Assert.DoesNotContain(key, plain.Split("alignment:")[1].Split("composite:")[0]);
         Assert.Equal(new AlignmentSettings { Reference = "A" }, ProjectReader.Parse(plain, "p.yaml").Project!.Alignment);
+        Assert.Equal(AlignmentScales.Site, ProjectReader.Parse(plain, "p.yaml").Project!.Alignment.Scale);
     }
 
     [Theory]

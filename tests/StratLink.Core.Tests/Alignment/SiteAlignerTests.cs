@@ -9,7 +9,8 @@ namespace StratLink.Tests.Alignment;
 /// The site scale (every core aligned again to the stack of the others) on generated demo sites,
 /// against the generator's hidden truth: per core, dtw must at least halve the straight-line-ties
 /// error and the ensemble's 95% band hold the true composite depth at >= 90% of samples (a 95% band
-/// with some model misfit), as for alignment to the reference alone.
+/// with some model misfit), as for alignment to the reference alone. Seeds 5 and 6 were not looked at
+/// while the method was worked on.
 /// </summary>
 public class SiteAlignerTests(ITestOutputHelper output)
 {
@@ -17,7 +18,9 @@ public class SiteAlignerTests(ITestOutputHelper output)
     [InlineData(1)]
     [InlineData(2)]
     [InlineData(3)]
-    [InlineData(4, Skip = "Open problem: with this seed the site scale draws the gravity core's lost top away from its place (RMS 5.8 cm against 5.2 cm for straight lines between ties, band 85%; 0.96 cm aligned to the reference alone)")]
+    [InlineData(4)]
+    [InlineData(5)]
+    [InlineData(6)]
     public void Every_core_aligned_to_the_stack_of_the_others_beats_the_ties_baseline(int seed)
     {
         var site = DemoSiteGenerator.Generate(seed);

@@ -26,6 +26,8 @@ public sealed class AlignmentChecksTests
 
     private static LoadedProject LoadThree(Project p) => Load(p, Table("A", 0, 100), Table("B", 0, 90), Table("C", 0, 120));
 
+    private static Project OnScale(Project p, string scale) => p with { Alignment = p.Alignment with { Scale = scale } };
+
     [Fact]
     public void TieTheSignalsDisagreeWithIsReportedWithItsDistance()
     {
@@ -60,7 +62,7 @@ public sealed class AlignmentChecksTests
     public void ConsistentAlignmentsCloseTheLoopAndSayHowWell()
     {
         var aligner = new LinearTruthAligner(Truth);
-        var f = Assert.Single(Run(LoadThree(ThreeCores(0)), new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        var f = Assert.Single(Run(LoadThree(OnScale(ThreeCores(0), AlignmentScales.Reference)), new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
         Assert.Equal(Severity.Note, f.Severity);
         Assert.Contains("differs by 0 cm", f.Message);
         // One alignment per reference core, each with that core as the reference.
@@ -73,7 +75,7 @@ public sealed class AlignmentChecksTests
         var aligner = new LinearTruthAligner(Truth);
         // With C as the reference, A's mapping bulges by up to 6 cm around A = 50 cm.
         aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
-        var findings = Run(LoadThree(ThreeCores(0)), new CheckContext { Aligner = aligner.Align });
+        var findings = Run(LoadThree(OnScale(ThreeCores(0), AlignmentScales.Reference)), new CheckContext { Aligner = aligner.Align });
         var f = Assert.Single(findings, f => f.Code == CheckCodes.LoopClosure);
         Assert.Equal(Severity.Warning, f.Severity);
         Assert.Contains("differs by 6 cm", f.Message);
@@ -86,11 +88,43 @@ public sealed class AlignmentChecksTests
     public void PassedAlignmentIsReusedForItsReferenceCore()
     {
         var aligner = new LinearTruthAligner(Truth);
-        var lp = LoadThree(ThreeCores(0));
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Reference));
         var given = aligner.Align(lp, CancellationToken.None);
         aligner.Calls.Clear();
         Run(lp, new CheckContext { Aligner = aligner.Align }, given);
         Assert.Equal(["B", "C"], aligner.Calls.Where(c => c.Markers.Count == 3).Select(c => c.Alignment.Reference!).Order());
+    }
+
+    [Fact]
+    public void OnTheSiteScaleThePairsThroughTheCompositeAgreeWithDirectPairAlignments()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var given = aligner.Align(lp, CancellationToken.None);
+        aligner.Calls.Clear();
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }, given), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(Severity.Note, f.Severity);
+        Assert.Contains("differs by 0 cm", f.Message);
+        // One direct alignment per core longer than another (B, 90 cm, is the shortest: aligned to A
+        // and C, never their reference), on the reference scale: the site's own alignment is not run
+        // again, and no round of the site scale is repeated per reference.
+        var loops = aligner.Calls.Where(c => c.Markers.Count == 3).ToList();
+        Assert.Equal(["A", "C"], loops.Select(c => c.Alignment.Reference!).Order());
+        Assert.All(loops, c => Assert.Equal(AlignmentScales.Reference, c.Alignment.Scale));
+    }
+
+    [Fact]
+    public void OnTheSiteScaleADirectPairAlignmentOffTheCompositeIsAWarning()
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        // Aligned to C (120 cm, longer than A) alone, A's mapping bulges by up to 6 cm around A = 50 cm; the site's composite does not.
+        aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(Severity.Warning, f.Severity);
+        Assert.Contains("differs by 6 cm", f.Message);
+        Assert.Equal(("A", "A/C"), (f.Core, f.Item));
+        Assert.Equal(50, f.Depth!.Value, 1.0);
     }
 
     [Fact]
