@@ -11,7 +11,8 @@ namespace StratLink.Alignment;
 /// fitted mean's own error, so the band widens with distance from the last matched sample but the
 /// ratio stays within what the aligned part shows: its spread s and correlation length (one window)
 /// are measured on the optimal mapping's log rate ratio over adjacent windows of the aligned part,
-/// the mean's error is s x sqrt(window / fitted stretch).
+/// the mean's error is s x sqrt(window / fitted stretch). What the same extrapolation, tried inside the
+/// aligned part, errs by beyond that walk is added as one shift per member (see <see cref="HindcastExcess"/>).
 /// </summary>
 internal sealed class EndExtension
 {
@@ -25,9 +26,22 @@ internal sealed class EndExtension
     private readonly double _top, _bottom, _gridStep, _spread, _window, _tieRatio;
     private readonly bool _extendTop, _extendBottom;
 
-    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double tieRatio, bool extendTop, bool extendBottom)
+    /// <summary>Hindcast error beyond the walk's, in core depth at unit ratio, every <see cref="_excessLag"/> from the matched end.</summary>
+    private readonly double[] _excess;
+    private readonly double _excessLag;
+
+    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double tieRatio, bool extendTop, bool extendBottom, double[] excess, double excessLag)
     {
         (_top, _bottom, _gridStep, _spread, _window, _tieRatio, _extendTop, _extendBottom) = (top, bottom, gridStep, spread, window, tieRatio, extendTop, extendBottom);
+        (_excess, _excessLag) = (excess, excessLag);
+    }
+
+    private double ExcessAt(double distance)
+    {
+        double r = distance / _excessLag;
+        int i = (int)Math.Floor(r);
+        if (i >= _excess.Length - 1) return _excess[^1];
+        return _excess[i] + (r - i) * (_excess[i + 1] - _excess[i]);
     }
 
     public static EndExtension Measure(DepthMapping optimal, double coreTop, double coreBottom, double gridStep, CoreOverhang overhang)
@@ -44,7 +58,62 @@ internal sealed class EndExtension
             double mean = logRatios.Average();
             spread = Math.Sqrt(logRatios.Sum(v => (v - mean) * (v - mean)) / (logRatios.Count - 1));
         }
-        return new EndExtension(coreTop, coreBottom, gridStep, Math.Min(spread, MaxSpread), window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0);
+        spread = Math.Min(spread, MaxSpread);
+        var excess = HindcastExcess(optimal, gridStep, spread, window, out double lag);
+        return new EndExtension(coreTop, coreBottom, gridStep, spread, window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0, excess, lag);
+    }
+
+    /// <summary>
+    /// The continuation's error the walk does not account for, by distance: at each distance d
+    /// (a step of <see cref="HindcastLag"/>), the same extrapolation is tried inside the aligned part
+    /// (from each sample, the rate fitted over max(2d, 10 steps) before it carried d beyond it,
+    /// against the optimal mapping there; both directions), and what its RMS error exceeds the walk's
+    /// standard deviation by (in quadrature) is kept, as a running maximum so it does not shrink
+    /// with distance. The window-scale spread misses rate changes shorter than a window, which a
+    /// continuation near the matched end meets first: empirical prediction intervals from past
+    /// forecast errors (Williams and Goodman 1971, from memory). Distances are tried up to a quarter
+    /// of the aligned length so that each rests on several independent stretches; beyond, the last
+    /// value is held.
+    /// </summary>
+    private static double[] HindcastExcess(DepthMapping optimal, double gridStep, double spread, double window, out double lag)
+    {
+        var x = optimal.CoreKnots;
+        double x0 = x[0], x1 = x[^1], length = x1 - x0;
+        lag = HindcastLag(gridStep, length);
+        var excess = new List<double> { 0 };
+        for (double d = lag; d <= length / 4; d += lag)
+        {
+            double fit = Math.Max(2 * d, MinFitSteps * gridStep);
+            if (fit + d > 0.75 * length) break;
+            double sum = 0;
+            int count = 0;
+            foreach (double sign in (double[])[1, -1])
+            {
+                for (double a = sign > 0 ? x0 + fit : x1 - fit; sign > 0 ? a + d <= x1 : a - d >= x0; a += sign * gridStep)
+                {
+                    double ya = optimal.ToCompositeValue(a);
+                    double ratio = sign * (ya - optimal.ToCompositeValue(a - sign * fit)) / fit;
+                    if (!(ratio > 0)) continue;
+                    double error = (optimal.ToCompositeValue(a + sign * d) - ya) / (sign * ratio) - d;
+                    sum += error * error;
+                    count++;
+                }
+            }
+            double model = ModelDeviation(d, fit, spread, window);
+            double observed = count > 0 ? sum / count : 0;
+            excess.Add(Math.Max(excess[^1], Math.Sqrt(Math.Max(0, observed - model * model))));
+        }
+        return [.. excess];
+    }
+
+    private static double HindcastLag(double gridStep, double length) => Math.Max(gridStep, length / 200);
+
+    /// <summary>Standard deviation, in core depth at unit ratio, of the walk's departure after <paramref name="d"/>: the fitted mean's error times d, plus the integrated Ornstein-Uhlenbeck process.</summary>
+    private static double ModelDeviation(double d, double fit, double spread, double window)
+    {
+        double meanError = spread * Math.Sqrt(Math.Min(1, window / fit)) * d;
+        double walk = spread * spread * 2 * window * window * (d / window - 1 + Math.Exp(-d / window));
+        return Math.Sqrt(meanError * meanError + walk);
     }
 
     /// <summary>The mapping continued to the core's ends; with <paramref name="rng"/> the rate ratio varies, without it it stays at the fitted one.</summary>
@@ -82,16 +151,25 @@ internal sealed class EndExtension
         int knots = Math.Clamp((int)Math.Ceiling(distance / _gridStep), 1, MaxWalkKnots);
         double dx = distance / knots, y = m.ToCompositeValue(from);
         double rho = Math.Exp(-dx / _window), innovation = _spread * Math.Sqrt(1 - rho * rho);
-        double logRatio = Math.Log(ratio) + (rng is null || fit <= 0 ? 0 : _spread * Math.Sqrt(Math.Min(1, _window / fit)) * Normal(rng));
-        double departure = 0;
+        // Log-normal departures of variance v raise the mean ratio by exp(v/2); taking v/2 off keeps
+        // the fitted ratio the members' mean, so a wider spread widens the band without moving it.
+        double meanError = fit <= 0 ? 0 : _spread * Math.Sqrt(Math.Min(1, _window / fit));
+        double logRatio = Math.Log(ratio) + (rng is null ? 0 : meanError * Normal(rng) - (meanError * meanError + _spread * _spread) / 2);
+        double departure = 0, y0 = y;
+        // One draw per member: the short-scale error shifts the whole continuation, growing with
+        // distance as the hindcast's does.
+        double shift = rng is null ? 0 : Normal(rng);
         var xs = new List<double>(knots);
         var ys = new List<double>(knots);
         for (int k = 1; k <= knots; k++)
         {
             if (rng is not null) departure = rho * departure + innovation * Normal(rng);
             y += sign * dx * Math.Exp(logRatio + departure);
+            double placed = y + sign * ratio * ExcessAt(k * dx) * shift;
+            // Composite depth keeps increasing with core depth.
+            double previous = ys.Count > 0 ? ys[^1] : y0;
             xs.Add(from + sign * k * dx);
-            ys.Add(y);
+            ys.Add(sign > 0 ? Math.Max(placed, previous) : Math.Min(placed, previous));
         }
         return (xs, ys);
     }

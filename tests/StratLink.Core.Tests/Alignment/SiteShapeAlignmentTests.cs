@@ -28,12 +28,17 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
     /// <summary>The gravity core (about 300 cm, its top lost) as the reference: the piston cores run past its top and hundreds of cm past its base.</summary>
     internal static readonly DemoSiteShape ShortReference = new() { Reference = "MW19-G3" };
 
-    private const string OpenProblem = "Open problem: the continued part's 95% band holds the truth at 89.4% of its samples (seed 1), and the freeze core's ensemble median leaves the optimal path over an ambiguous 15 cm (seed 3: RMS 1.94 cm against 3.61 cm for straight lines between ties)";
+    private const string AmbiguousStretch = "Open problem: the freeze core's ensemble median leaves the optimal path over an ambiguous 15 cm (RMS 1.94 cm against 3.61 cm for straight lines between ties)";
+
+    private const string UnseenRate = "Open problem: past the reference's base the continued median errs by 8.3 cm RMS against 3.6 cm for straight-line ties (the band holds the truth at 100%): the rate ratio fitted next to the matched end is not the one the unrecovered column keeps";
 
     [Theory]
-    [InlineData(1, Skip = OpenProblem)]
+    [InlineData(1)]
     [InlineData(2)]
-    [InlineData(3, Skip = OpenProblem)]
+    [InlineData(3, Skip = AmbiguousStretch)]
+    [InlineData(4)]
+    [InlineData(5, Skip = UnseenRate)]
+    [InlineData(6)]
     public void A_core_past_the_reference_base_is_continued_with_an_honest_band(int seed) => Check(seed, DeepCore);
 
     private const string ShortReferenceProblem = "Open problem: the piston cores run hundreds of cm past the short reference's base, more than half their length, so they are not padded and are squeezed onto it; even padded, continuing them at one rate ratio misses the reference's unrecovered column by 15-55 cm RMS with a band far too narrow, where straight lines through the ties carried by the other cores err by 3-16 cm";
