@@ -110,7 +110,7 @@ public static class DtwCoreAligner
         EndExtension? ends = null;
         if (overhang.Any)
         {
-            ends = EndExtension.Measure(optimalMapping, core.DepthAt(0), core.DepthAt(n - 1), core.Step, overhang);
+            ends = EndExtension.Measure(optimalMapping, core.DepthAt(0), core.DepthAt(n - 1), core.Step, overhang, ties);
             optimalMapping = ends.Apply(optimalMapping, null);
         }
         var diagnostics = new CoreAlignmentDiagnostics

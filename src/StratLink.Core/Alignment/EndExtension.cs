@@ -29,11 +29,12 @@ internal sealed class EndExtension
     /// <summary>Hindcast error beyond the walk's, in core depth at unit ratio, every <see cref="_excessLag"/> from the matched end.</summary>
     private readonly double[] _excess;
     private readonly double _excessLag;
+    private readonly IReadOnlyList<TiePoint> _ties;
 
-    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double tieRatio, bool extendTop, bool extendBottom, double[] excess, double excessLag)
+    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double tieRatio, bool extendTop, bool extendBottom, double[] excess, double excessLag, IReadOnlyList<TiePoint> ties)
     {
         (_top, _bottom, _gridStep, _spread, _window, _tieRatio, _extendTop, _extendBottom) = (top, bottom, gridStep, spread, window, tieRatio, extendTop, extendBottom);
-        (_excess, _excessLag) = (excess, excessLag);
+        (_excess, _excessLag, _ties) = (excess, excessLag, ties);
     }
 
     private double ExcessAt(double distance)
@@ -44,7 +45,7 @@ internal sealed class EndExtension
         return _excess[i] + (r - i) * (_excess[i + 1] - _excess[i]);
     }
 
-    public static EndExtension Measure(DepthMapping optimal, double coreTop, double coreBottom, double gridStep, CoreOverhang overhang)
+    public static EndExtension Measure(DepthMapping optimal, double coreTop, double coreBottom, double gridStep, CoreOverhang overhang, IReadOnlyList<TiePoint> ties)
     {
         var x = optimal.CoreKnots;
         double x0 = x[0], x1 = x[^1], length = x1 - x0;
@@ -60,7 +61,7 @@ internal sealed class EndExtension
         }
         spread = Math.Min(spread, MaxSpread);
         var excess = HindcastExcess(optimal, gridStep, spread, window, out double lag);
-        return new EndExtension(coreTop, coreBottom, gridStep, spread, window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0, excess, lag);
+        return new EndExtension(coreTop, coreBottom, gridStep, spread, window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0, excess, lag, ties);
     }
 
     /// <summary>
@@ -149,29 +150,60 @@ internal sealed class EndExtension
         if (!(ratio > 0)) ratio = _tieRatio;
         ratio = Math.Clamp(ratio, _tieRatio / MaxRatioDeparture, _tieRatio * MaxRatioDeparture);
         int knots = Math.Clamp((int)Math.Ceiling(distance / _gridStep), 1, MaxWalkKnots);
-        double dx = distance / knots, y = m.ToCompositeValue(from);
-        double rho = Math.Exp(-dx / _window), innovation = _spread * Math.Sqrt(1 - rho * rho);
+        double y0 = m.ToCompositeValue(from);
+        // Ties past the matched end (markers carried through other cores) place the continuation:
+        // it follows straight lines between them and the rate ratio beyond the last, each member
+        // moving a tie's position by its uncertainty.
+        var beyond = new List<(double D, double Shift)> { (0, 0) };
+        foreach (var t in _ties.OrderBy(t => sign * t.CoreDepth))
+        {
+            double d = sign * (t.CoreDepth - from);
+            if (d <= 0 || d > distance || sign * (t.CompositeDepth - (beyond.Count > 1 ? y0 + sign * ratio * beyond[^1].D + beyond[^1].Shift : y0)) <= 0) continue;
+            double shift = t.CompositeDepth - (y0 + sign * ratio * d);
+            if (rng is not null) shift += t.Uncertainty * Normal(rng);
+            beyond.Add((d, shift));
+        }
+        var at = Enumerable.Range(1, knots).Select(k => k * distance / knots).Concat(beyond.Skip(1).Select(b => b.D)).Distinct().Order().ToArray();
+        double y = y0, reached = 0;
         // Log-normal departures of variance v raise the mean ratio by exp(v/2); taking v/2 off keeps
         // the fitted ratio the members' mean, so a wider spread widens the band without moving it.
         double meanError = fit <= 0 ? 0 : _spread * Math.Sqrt(Math.Min(1, _window / fit));
         double logRatio = Math.Log(ratio) + (rng is null ? 0 : meanError * Normal(rng) - (meanError * meanError + _spread * _spread) / 2);
-        double departure = 0, y0 = y;
+        double departure = 0;
         // One draw per member: the short-scale error shifts the whole continuation, growing with
         // distance as the hindcast's does.
-        double shift = rng is null ? 0 : Normal(rng);
-        var xs = new List<double>(knots);
-        var ys = new List<double>(knots);
-        for (int k = 1; k <= knots; k++)
+        double excessDraw = rng is null ? 0 : Normal(rng);
+        var xs = new List<double>(at.Length);
+        var ys = new List<double>(at.Length);
+        foreach (double d in at)
         {
-            if (rng is not null) departure = rho * departure + innovation * Normal(rng);
+            double dx = d - reached;
+            reached = d;
+            if (rng is not null)
+            {
+                double rho = Math.Exp(-dx / _window);
+                departure = rho * departure + _spread * Math.Sqrt(1 - rho * rho) * Normal(rng);
+            }
             y += sign * dx * Math.Exp(logRatio + departure);
-            double placed = y + sign * ratio * ExcessAt(k * dx) * shift;
+            double placed = y + sign * ratio * ExcessAt(d) * excessDraw + TieShift(beyond, d);
             // Composite depth keeps increasing with core depth.
             double previous = ys.Count > 0 ? ys[^1] : y0;
-            xs.Add(from + sign * k * dx);
+            xs.Add(from + sign * d);
             ys.Add(sign > 0 ? Math.Max(placed, previous) : Math.Min(placed, previous));
         }
         return (xs, ys);
+    }
+
+    /// <summary>The ties' shifts from the fitted continuation, linear between them, held beyond the last.</summary>
+    private static double TieShift(List<(double D, double Shift)> beyond, double d)
+    {
+        for (int k = 1; k < beyond.Count; k++)
+        {
+            if (d > beyond[k].D) continue;
+            var (a, b) = (beyond[k - 1], beyond[k]);
+            return a.Shift + (b.Shift - a.Shift) * (d - a.D) / (b.D - a.D);
+        }
+        return beyond[^1].Shift;
     }
 
     private static double Normal(Random rng)

@@ -39,6 +39,7 @@ internal static class SiteAligner
         Dictionary<string, CoreAlignmentDiagnostics> diagnostics, DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct)
     {
         var optimalOnly = options with { Ensemble = 0 };
+        StartFromTiesWhereMostlyOutside(reference, members, mappings, unit);
         int rounds = 0;
         bool settled = false;
         var last = Array.Empty<(MappingEnsemble, CoreAlignmentDiagnostics, FindingList Findings)>();
@@ -55,6 +56,26 @@ internal static class SiteAligner
         }
         foreach (var n in last) findings.AddRange(n.Findings);
         return (rounds, settled);
+    }
+
+    /// <summary>
+    /// A core whose ties place more than half of it outside the reference cannot be placed by an
+    /// alignment to the reference alone (it is squeezed onto the reference), so it starts from its
+    /// straight-line-ties mapping: beyond the reference the stack is then made of the cores that
+    /// reach there as their ties (marker layers shared with other cores) place them, and each is
+    /// matched to the others there in the rounds.
+    /// </summary>
+    private static void StartFromTiesWhereMostlyOutside(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, DepthUnit unit)
+    {
+        double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
+        foreach (var c in members)
+        {
+            if (c.Ties.Count < 2) continue;
+            double top = c.Signals.DepthAt(0), bottom = c.Signals.DepthAt(c.Signals.Count - 1);
+            var line = TieNetwork.StraightLines(c.CoreId, unit, [.. c.Ties.OrderBy(t => t.CoreDepth)], top, bottom);
+            double outside = Math.Max(0, refTop - line.ToCompositeValue(top)) + Math.Max(0, line.ToCompositeValue(bottom) - refBottom);
+            if (outside > 0.5 * (line.ToCompositeValue(bottom) - line.ToCompositeValue(top))) mappings[c.CoreId] = new MappingEnsemble(line, []);
+        }
     }
 
     /// <summary>Every member aligned to the stack of all the others as <paramref name="mappings"/> place them (their medians).</summary>
