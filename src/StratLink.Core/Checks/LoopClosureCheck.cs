@@ -149,6 +149,7 @@ internal static class LoopClosureCheck
                 if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
                 var tc = loaded.Tables[c];
                 var specC = p.FindCore(c)!;
+                double sigma = Math.Max(tie, AlignmentRuns.GridStep(p, tc));
                 // The part of A that C covers on the composite.
                 double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
                 double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
@@ -169,8 +170,10 @@ internal static class LoopClosureCheck
                     // cost more than the site's whole alignment); aligned on two cores where the site uses
                     // all, it is at least the site's, so the difference of the two is uncertain by at
                     // least sqrt(2) times the site's band: a lower bound, so the check stays strict.
+                    // The band only lowers the excess, so it is read (sorting the members) only where the
+                    // tie uncertainty alone would make this point the worst.
+                    if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
                     double band = Math.Sqrt(2) * BandSigma(sa, z, sc, implied);
-                    double sigma = Math.Max(tie, AlignmentRuns.GridStep(p, tc));
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
                     if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied);
                 }
