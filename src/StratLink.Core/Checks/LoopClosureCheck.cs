@@ -166,13 +166,13 @@ internal static class LoopClosureCheck
                     double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
                     if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
                     double mismatch = Math.Abs(d - implied);
+                    // The band only lowers the excess, so it is read (sorting the members) only where the
+                    // tie uncertainty alone would make this point the worst.
+                    if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
                     // The direct alignment's own uncertainty is not sampled (an ensemble per reference would
                     // cost more than the site's whole alignment); aligned on two cores where the site uses
                     // all, it is at least the site's, so the difference of the two is uncertain by at
                     // least sqrt(2) times the site's band: a lower bound, so the check stays strict.
-                    // The band only lowers the excess, so it is read (sorting the members) only where the
-                    // tie uncertainty alone would make this point the worst.
-                    if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
                     double band = Math.Sqrt(2) * BandSigma(sa, z, sc, implied);
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
                     if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied);
