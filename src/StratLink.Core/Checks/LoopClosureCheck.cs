@@ -24,7 +24,9 @@ namespace StratLink.Checks;
 /// along it), where there is nothing to compare. Consistent alignments close the loop; the worst
 /// mismatch and where it is are reported, as a warning when it exceeds
 /// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
-/// at least one grid step of C), else as a note.
+/// at least one grid step of C), else as a note. On the site scale the composite's own band at the
+/// point (from the ensemble, when there is one) is added in quadrature: a mapping known only to within
+/// its band agrees with another when they differ by no more than both uncertainties allow.
 /// </summary>
 internal static class LoopClosureCheck
 {
@@ -132,8 +134,9 @@ internal static class LoopClosureCheck
         }
         progress?.Report(new WorkProgress(stage, 1));
 
-        (double Mismatch, string A, string C, double Z, double Direct, double Implied)? worst = null;
+        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied)? worst = null;
         double factor = p.Checks.RateJumpFactor;
+        double tie = TypicalTieSigma(p);
         foreach (string a in cores)
         {
             if (!site.TryGetValue(a, out var sa)) continue;
@@ -146,6 +149,7 @@ internal static class LoopClosureCheck
                 if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
                 var tc = loaded.Tables[c];
                 var specC = p.FindCore(c)!;
+                double sigma = Math.Max(tie, AlignmentRuns.GridStep(p, tc));
                 // The part of A that C covers on the composite.
                 double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
                 double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
@@ -162,30 +166,68 @@ internal static class LoopClosureCheck
                     double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
                     if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
                     double mismatch = Math.Abs(d - implied);
-                    if (worst is null || mismatch > worst.Value.Mismatch) worst = (mismatch, a, c, z, d, implied);
+                    // The band only lowers the excess, so it is read (sorting the members) only where the
+                    // tie uncertainty alone would make this point the worst.
+                    if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
+                    // The direct alignment's own uncertainty is not sampled (an ensemble per reference would
+                    // cost more than the site's whole alignment); aligned on two cores where the site uses
+                    // all, it is at least the site's, so the difference of the two is uncertain by at
+                    // least sqrt(2) times the site's band: a lower bound, so the check stays strict.
+                    double band = Math.Sqrt(2) * BandSigma(sa, z, sc, implied);
+                    double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
+                    if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied);
                 }
             }
         }
         if (worst is not { } w) return;
         Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
-            $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone differs by {r.Depth(w.Mismatch)} at most, at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly); ",
-            $"{w.A}/{w.C}");
+            $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
+            $"{w.A}/{w.C}", w.Band);
     }
 
-    private static void Report(CheckReporter r, LoadedProject loaded, double mismatch, string a, string c, double z, string what, string item)
+    /// <summary>
+    /// Reports the worst mismatch against <see cref="CheckSettings.TieMisfitSigmas"/> times the typical
+    /// tie uncertainty (at least one grid step of C), combined in quadrature with the standard
+    /// uncertainty <paramref name="band"/> (C's depth units) of the mapping the mismatch is measured on.
+    /// </summary>
+    private static void Report(CheckReporter r, LoadedProject loaded, double mismatch, string a, string c, double z, string what, string item, double band = 0)
     {
         var p = r.Project;
-        var uncertainties = p.Markers.Select(m => m.Uncertainty).Order().ToArray();
-        double typical = uncertainties.Length == 0 ? 0 : Statistics.PercentileSorted(uncertainties, 50);
-        double sigma = Math.Max(typical, AlignmentRuns.GridStep(p, loaded.Tables[c]));
+        double tie = Math.Max(TypicalTieSigma(p), AlignmentRuns.GridStep(p, loaded.Tables[c]));
+        double sigma = Math.Sqrt(tie * tie + band * band);
         double limit = p.Checks.TieMisfitSigmas * sigma;
         bool bad = mismatch > limit;
+        string basis = band > 0
+            ? $"{r.Depth(tie)} typical tie uncertainty (at least one grid step) and {r.Depth(band)} from the bands of both mappings there, combined"
+            : "typical tie uncertainty, at least one grid step";
         r.Add(bad ? Severity.Warning : Severity.Note, CheckCodes.LoopClosure,
             what
             + (bad
-                ? $"that is more than {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} (typical tie uncertainty, at least one grid step), so the alignments are not consistent there."
-                : $"within {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} (typical tie uncertainty, at least one grid step)."),
+                ? $"that is more than {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} ({basis}), so the alignments are not consistent there."
+                : $"within {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} ({basis})."),
             a, item, z, $"cores[{a}]");
+    }
+
+    private static double TypicalTieSigma(Project p)
+    {
+        var uncertainties = p.Markers.Select(m => m.Uncertainty).Order().ToArray();
+        return uncertainties.Length == 0 ? 0 : Statistics.PercentileSorted(uncertainties, 50);
+    }
+
+    /// <summary>
+    /// Standard uncertainty, in C's depth, of the site's placement of A's depth <paramref name="z"/> in C:
+    /// A's and C's ensemble bands on the composite (95 % ranges, half-width / 1.96 as for a normal
+    /// spread) combined in quadrature, carried to C's depth by C's local rate ratio. Zero without
+    /// ensembles. The site's mapping is itself uncertain by that much, so agreeing "within the tie
+    /// uncertainty" means within both.
+    /// </summary>
+    private static double BandSigma(MappingEnsemble a, double z, MappingEnsemble c, double inC)
+    {
+        var (aLo, aHi) = a.CompositeRange(z);
+        var (cLo, cHi) = c.CompositeRange(inC);
+        double sa = (aHi - aLo) / (2 * 1.96), sc = (cHi - cLo) / (2 * 1.96);
+        double rate = c.Median.RateRatioAt(inC);
+        return rate > 0 ? Math.Sqrt(sa * sa + sc * sc) / rate : 0;
     }
 
     /// <summary>True when a gap or disturbed interval of <paramref name="core"/> meets <paramref name="lo"/>-<paramref name="hi"/> (project unit).</summary>

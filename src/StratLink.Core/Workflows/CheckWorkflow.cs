@@ -14,7 +14,9 @@ public static class CheckWorkflow
     {
         var findings = new List<Finding>(project.Problems);
         if (project.Problems.HasErrors || project.Tables.Count == 0) return findings;
-        var alignment = Realign(project, ct);
+        // The site's mappings as the build makes them (the ensemble's median and band, not the optimal
+        // path alone): the checks judge the alignment the outputs carry.
+        var alignment = CoreAligner.Align(project, null, ct);
         findings.AddRange(alignment.Findings);
         findings.AddRange(ProjectChecks.Run(project, alignment, Context(null, progress), ct));
         return findings;

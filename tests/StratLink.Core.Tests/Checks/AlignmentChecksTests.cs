@@ -127,6 +127,25 @@ public sealed class AlignmentChecksTests
         Assert.Equal(50, f.Depth!.Value, 1.0);
     }
 
+    [Theory]
+    // Composite band half-width h on A's and C's site mappings: each a standard uncertainty of h / 1.96
+    // (95 % range of a normal spread), combined in quadrature, doubled in variance for the direct
+    // alignment's own, and carried to C's depth by C's rate (1.2 cm per composite cm): 1.22 h. With the
+    // tie uncertainty (0.5 cm, or one grid step) the limit is 3 x sqrt(sigma^2 + (1.22 h)^2).
+    [InlineData(0.5, Severity.Warning)] // limit at most 3 x sqrt(1 + 0.37) = 3.5 cm < 6 cm
+    [InlineData(2.0, Severity.Note)] // limit at least 3 x 2.45 = 7.3 cm > 6 cm
+    public void OnTheSiteScaleTheCompositesBandWidensTheLimit(double band, Severity expected)
+    {
+        var aligner = new LinearTruthAligner(Truth) { Band = band };
+        aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var given = aligner.Align(lp, CancellationToken.None);
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }, given), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(expected, f.Severity);
+        Assert.Contains("differs by 6 cm", f.Message);
+        Assert.Contains("from the bands of both mappings", f.Message);
+    }
+
     [Fact]
     public void FailingAlignerGivesANoteAndTheOtherChecksStillRun()
     {

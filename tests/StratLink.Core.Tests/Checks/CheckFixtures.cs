@@ -74,6 +74,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
     /// <summary>(reference, core) to extra composite depth added at the core's knots (core depth, extra).</summary>
     public Dictionary<(string Reference, string Core), (double Depth, double Extra)[]> Distortions { get; } = [];
 
+    /// <summary>Half-width (composite depth) of every mapping's 95 % band: half the members lie that far above the median, half below.</summary>
+    public double Band { get; set; }
+
     public double CoreDepthOf(string core, double t) => truth[core].Scale * t + truth[core].Offset;
 
     public AlignmentResult Align(LoadedProject lp, CancellationToken ct)
@@ -92,7 +95,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
                 double t = (x - truth[id].Offset) / truth[id].Scale;
                 return CoreDepthOf(reference, t) + (bumps?.FirstOrDefault(b => b.Depth == x).Extra ?? 0);
             }).ToArray();
-            maps[id] = new MappingEnsemble(new DepthMapping(id, CheckFixtures.Unit, core, composite), []);
+            DepthMapping Shifted(double by) => new(id, CheckFixtures.Unit, core, composite.Select(v => v + by).ToArray());
+            var members = Band > 0 ? Enumerable.Range(0, 200).Select(k => Shifted(k % 2 == 0 ? -Band : Band)).ToArray() : [];
+            maps[id] = new MappingEnsemble(Shifted(0), members);
         }
         return new AlignmentResult(reference, "test-truth", maps);
     }
