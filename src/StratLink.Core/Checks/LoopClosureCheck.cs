@@ -15,7 +15,9 @@ namespace StratLink.Checks;
 /// one aligned to a shorter has most of its length with nothing to match. Points whose two placements
 /// have a gap or disturbed interval at or between them (in C, or in A with the direct placement carried
 /// back through the site) are not compared: there the pair alone has nothing to align on, while the
-/// site bridges it with the other cores.
+/// site bridges it with the other cores. Nor are the parts of A beyond its outermost tie with C that
+/// the pair's path places by its ends rather than by the records: an open end, where the path may stop
+/// anywhere, and an end the ties place beyond C's unpadded end, onto which the path squeezes A.
 /// Only the part of A that the other cores overlap is compared (in the reference scale taken from the
 /// alignment with A as the reference, where B and C map onto the stretch of A they cover), less one
 /// grid step at each end; and points where a mapping's local rate ratio departs from its overall ratio
@@ -114,8 +116,9 @@ internal static class LoopClosureCheck
         if (site is null) return;
         double Length(string id) => loaded.Tables[id].Depths[^1] - loaded.Tables[id].Depths[0];
         bool Longer(string c, string a) => Length(c) > Length(a) || Length(c) == Length(a) && cores.IndexOf(c) < cores.IndexOf(a);
-        // direct[c][a]: core a's depth to core c's depth, aligned to c alone; c longer than a.
-        var direct = new Dictionary<string, IReadOnlyDictionary<string, MappingEnsemble>>(StringComparer.Ordinal);
+        // direct[c][a]: core a's depth to core c's depth, aligned to c alone; c longer than a. ties[c]: the ties that alignment had.
+        var direct = new Dictionary<string, AlignmentResult>(StringComparer.Ordinal);
+        var ties = new Dictionary<string, TieNetwork>(StringComparer.Ordinal);
         var references = cores.Where(c => cores.Any(a => a != c && Longer(c, a))).ToList();
         for (int i = 0; i < references.Count; i++)
         {
@@ -130,7 +133,8 @@ internal static class LoopClosureCheck
                     $"The loop-closure check did not run: aligning the cores to {reference} failed ({failure}).", reference, null, null, "alignment.reference");
                 return;
             }
-            direct[reference] = result.Mappings;
+            direct[reference] = result;
+            ties[reference] = TieNetwork.Build(pair, loaded.Tables, []);
         }
         progress?.Report(new WorkProgress(stage, 1));
 
@@ -146,13 +150,16 @@ internal static class LoopClosureCheck
             double stepA = AlignmentRuns.GridStep(p, ta);
             foreach (string c in cores.Where(c => c != a && Longer(c, a)))
             {
-                if (!site.TryGetValue(c, out var sc) || !direct[c].TryGetValue(a, out var ac)) continue;
+                if (!site.TryGetValue(c, out var sc) || !direct[c].Mappings.TryGetValue(a, out var ac)) continue;
                 var tc = loaded.Tables[c];
                 var specC = p.FindCore(c)!;
                 double sigma = Math.Max(tie, AlignmentRuns.GridStep(p, tc));
                 // The part of A that C covers on the composite.
                 double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
                 double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
+                var (ownLo, ownHi) = PlacedByThePair(ac, direct[c].Diagnostics.GetValueOrDefault(a), ties[c], a, ta, tc, AlignmentRuns.GridStep(p, tc));
+                lo = Math.Max(lo, ownLo);
+                hi = Math.Min(hi, ownHi);
                 for (int k = 0; k < ta.Count; k += stride)
                 {
                     double z = ta.Depths[k];
@@ -228,6 +235,30 @@ internal static class LoopClosureCheck
         double sa = (aHi - aLo) / (2 * 1.96), sc = (cHi - cLo) / (2 * 1.96);
         double rate = c.Median.RateRatioAt(inC);
         return rate > 0 ? Math.Sqrt(sa * sa + sc * sc) / rate : 0;
+    }
+
+    /// <summary>
+    /// The part of A whose placement in C the pair's own alignment has evidence for. Between A's
+    /// outermost ties the path is held at both sides. Beyond them it is held only by an end the
+    /// alignment closes where the pair's ties place it: at an open end (A ends inside C) the path may
+    /// stop at any column, and stopping costs what matching on does (the completion cost is the path's
+    /// mean cost per cell), so where it stops, and A's placement back to the tie with it, is the
+    /// choice of its last rows; where the ties place A's end beyond C's end but C was not padded (the
+    /// overhang within the band), the path starts (ends) A at C's end and has had to fit A's surplus
+    /// onto it (a freeze core above a gravity core's lost top, squeezed onto it).
+    /// </summary>
+    private static (double Lo, double Hi) PlacedByThePair(MappingEnsemble direct, CoreAlignmentDiagnostics? diagnostics, TieNetwork network, string a,
+        Tables.CoreTable ta, Tables.CoreTable tc, double stepC)
+    {
+        double lo = double.NegativeInfinity, hi = double.PositiveInfinity;
+        var ties = network.TiesOf(a);
+        if (network.LineOf(a) is not { } line || ties.Count == 0) return (lo, hi);
+        double aTop = ta.Depths[0], aBottom = ta.Depths[^1], cTop = tc.Depths[0], cBottom = tc.Depths[^1];
+        bool squeezedAtTop = line.ToCompositeValue(aTop) < cTop - stepC && direct.Median.ToCompositeValue(aTop) > cTop - stepC;
+        bool squeezedAtBottom = line.ToCompositeValue(aBottom) > cBottom + stepC && direct.Median.ToCompositeValue(aBottom) < cBottom + stepC;
+        if (squeezedAtTop || diagnostics?.OpenBegin == true) lo = ties[0].CoreDepth;
+        if (squeezedAtBottom || diagnostics?.OpenEnd == true) hi = ties[^1].CoreDepth;
+        return (lo, hi);
     }
 
     /// <summary>True when a gap or disturbed interval of <paramref name="core"/> meets <paramref name="lo"/>-<paramref name="hi"/> (project unit).</summary>

@@ -128,6 +128,35 @@ public sealed class AlignmentChecksTests
     }
 
     [Theory]
+    // A (0-100 cm) ends inside C (0-120 cm, to which A's base maps at 117 cm); its last tie, m3, is at
+    // A = 75 cm. Aligned to C alone, A's base runs off along C by up to 6 cm from A = 85 cm.
+    [InlineData(true, Severity.Note)] // the path may stop anywhere: beyond m3 the pair has no hold
+    [InlineData(false, Severity.Warning)] // closed there, the pair's path is held at A's base
+    public void OnTheSiteScaleAPairPathRunningOffAnOpenEndIsNotHeldAgainstTheSite(bool open, Severity expected)
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.Distortions[("C", "A")] = [(85, 0), (95, 6), (100, 6)];
+        if (open) aligner.OpenEnds[("C", "A")] = (false, true);
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(expected, f.Severity);
+    }
+
+    [Theory]
+    // The truth places A's top at C = -3 cm (C = 1.2 t - 3, A = t). Aligned to C alone, A's top is
+    // pushed 6 cm down into C, easing to none at A = 15 cm, above A's first tie (m1, 20 cm).
+    [InlineData(0.0, Severity.Note)] // C starts at 0: the ties place A's top above C's, so the push is C's closed top squeezing A onto it
+    [InlineData(-6.0, Severity.Warning)] // C starts at -6 cm: A's top lies inside C, where the pair's records hold the path
+    public void OnTheSiteScaleAPairPathSqueezedOntoTheLongerCoresEndIsNotHeldAgainstTheSite(double topOfC, Severity expected)
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.Distortions[("C", "A")] = [(0, 6), (15, 0)];
+        var lp = Load(OnScale(ThreeCores(0), AlignmentScales.Site), Table("A", 0, 100), Table("B", 0, 90), Table("C", topOfC, 120));
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(expected, f.Severity);
+    }
+
+    [Theory]
     // Composite band half-width h on A's and C's site mappings: each a standard uncertainty of h / 1.96
     // (95 % range of a normal spread), combined in quadrature, doubled in variance for the direct
     // alignment's own, and carried to C's depth by C's rate (1.2 cm per composite cm): 1.22 h. With the

@@ -74,6 +74,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
     /// <summary>(reference, core) to extra composite depth added at the core's knots (core depth, extra).</summary>
     public Dictionary<(string Reference, string Core), (double Depth, double Extra)[]> Distortions { get; } = [];
 
+    /// <summary>(reference, core) whose alignment leaves the core's top or base open: it may start (stop) at any depth of the reference.</summary>
+    public Dictionary<(string Reference, string Core), (bool Begin, bool End)> OpenEnds { get; } = [];
+
     /// <summary>Half-width (composite depth) of every mapping's 95 % band: half the members lie that far above the median, half below.</summary>
     public double Band { get; set; }
 
@@ -84,6 +87,7 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
         Calls.Add(lp.Project);
         string reference = lp.Project.ReferenceCoreId;
         var maps = new Dictionary<string, MappingEnsemble>();
+        var diagnostics = new Dictionary<string, CoreAlignmentDiagnostics>();
         foreach (var (id, table) in lp.Tables)
         {
             var knots = new SortedSet<double> { table.Depths[0], table.Depths[^1] };
@@ -98,7 +102,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
             DepthMapping Shifted(double by) => new(id, CheckFixtures.Unit, core, composite.Select(v => v + by).ToArray());
             var members = Band > 0 ? Enumerable.Range(0, 200).Select(k => Shifted(k % 2 == 0 ? -Band : Band)).ToArray() : [];
             maps[id] = new MappingEnsemble(Shifted(0), members);
+            var (begin, end) = OpenEnds.GetValueOrDefault((reference, id));
+            diagnostics[id] = new CoreAlignmentDiagnostics { CoreId = id, Method = "test-truth", OpenBegin = begin, OpenEnd = end };
         }
-        return new AlignmentResult(reference, "test-truth", maps);
+        return new AlignmentResult(reference, "test-truth", maps, null, diagnostics);
     }
 }

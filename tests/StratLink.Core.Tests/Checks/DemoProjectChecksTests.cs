@@ -42,18 +42,21 @@ public sealed class DemoProjectChecksTests(ITestOutputHelper output)
     }
 
     /// <summary>
-    /// Generated sites of the demo's shape, consistent by construction like the committed one. Seeds 4
-    /// and 6 are left out: there the freeze core shares one tie with the gravity core, and aligned to
-    /// it alone it is placed up to 15 cm off the truth near its ends (seed 4: its base, 15 cm below the
-    /// tie, stretched along the gravity core; seed 6: its top, running past the gravity core's top by
-    /// less than a band half-width as the tie places it, so not padded and squeezed onto that top),
-    /// so the check rightly finds the pair alone at odds with the site.
+    /// Generated sites of the demo's shape, consistent by construction like the committed one. On seeds
+    /// 4, 6 and 8 the freeze core, sharing one tie with the gravity core, is placed up to 16 cm off the
+    /// truth near its ends when aligned to the gravity core alone (its top squeezed onto the gravity
+    /// core's lost top, which its tie places it above; its base stretched along the gravity core where
+    /// the path may stop anywhere), so those parts are not held against the site.
     /// </summary>
     [Theory]
     [InlineData(1)]
     [InlineData(2)]
     [InlineData(3)]
+    [InlineData(4)]
     [InlineData(5)]
+    [InlineData(6)]
+    [InlineData(7)]
+    [InlineData(8)]
     public void GeneratedSitesCloseTheLoops(int seed)
     {
         var findings = CheckWorkflow.Run(SiteShapeAlignmentTests.Load(DemoSiteGenerator.Generate(seed)), null, CancellationToken.None);
