@@ -9,14 +9,14 @@ namespace StratLink.Checks;
 internal static class AlignmentRuns
 {
     /// <summary>
-    /// Aligns <paramref name="edited"/> with the loaded tables. The checks use only the best mapping, so
-    /// no ensemble is asked for. An aligner failure on the edited project (e.g. a core left with nothing
+    /// Aligns <paramref name="edited"/> with the loaded tables. The checks mostly use only the best
+    /// mapping, so no ensemble is asked for unless <paramref name="ensemble"/> members are. An aligner failure on the edited project (e.g. a core left with nothing
     /// to align on) is returned as text, not thrown: the other checks still report.
     /// </summary>
     public static AlignmentResult? TryAlign(Func<LoadedProject, CancellationToken, AlignmentResult> aligner, LoadedProject loaded,
-        Project edited, CancellationToken ct, out string? failure)
+        Project edited, CancellationToken ct, out string? failure, int ensemble = 0)
     {
-        edited = edited with { Alignment = edited.Alignment with { Ensemble = 0 } };
+        edited = edited with { Alignment = edited.Alignment with { Ensemble = ensemble } };
         try
         {
             failure = null;

@@ -27,13 +27,21 @@ namespace StratLink.Checks;
 /// mismatch and where it is are reported, as a warning when it exceeds
 /// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
 /// at least one grid step of C), else as a note. On the site scale the composite's own band at the
-/// point (from the ensemble, when there is one) is added in quadrature: a mapping known only to within
-/// its band agrees with another when they differ by no more than both uncertainties allow.
+/// point (from the ensemble, when there is one) is added in quadrature, and the pair's: at least the
+/// site's, and where the optimal paths would warn, the pair's own band from its sampled paths. A
+/// mapping known only to within its band agrees with another when they differ by no more than both
+/// uncertainties allow.
 /// </summary>
 internal static class LoopClosureCheck
 {
     /// <summary>Samples of A compared per loop; enough to find a local misfit, bounded for long cores.</summary>
     private const int MaxPointsPerCore = 1000;
+
+    /// <summary>
+    /// Sampled paths of a pair's own alignment where its optimal path would warn: enough for a 95 %
+    /// range with a few members beyond each end, at half the cost of the build's default ensemble.
+    /// </summary>
+    private const int PairEnsemble = 100;
 
     public static void Run(CheckReporter r, LoadedProject loaded, AlignmentResult? given, Func<LoadedProject, CancellationToken, AlignmentResult> aligner,
         IProgress<WorkProgress>? progress, CancellationToken ct)
@@ -138,28 +146,47 @@ internal static class LoopClosureCheck
         }
         progress?.Report(new WorkProgress(stage, 1));
 
-        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied)? worst = null;
         double factor = p.Checks.RateJumpFactor;
         double tie = TypicalTieSigma(p);
-        foreach (string a in cores)
+        // Optimal paths first; a reference whose pairs would warn is aligned again with the path
+        // ensemble, so that a warning is judged against the pair's own band, not a bound on it.
+        var worstByReference = references.ToDictionary(c => c, c => WorstPair(c, sampled: false), StringComparer.Ordinal);
+        foreach (string c in references)
         {
-            if (!site.TryGetValue(a, out var sa)) continue;
-            var ta = loaded.Tables[a];
-            var spec = p.FindCore(a)!;
-            int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
-            double stepA = AlignmentRuns.GridStep(p, ta);
-            foreach (string c in cores.Where(c => c != a && Longer(c, a)))
+            if (worstByReference[c] is not { } first || first.Excess <= p.Checks.TieMisfitSigmas) continue;
+            ct.ThrowIfCancellationRequested();
+            var pair = p with { Alignment = p.Alignment with { Reference = c, Scale = AlignmentScales.Reference } };
+            if (AlignmentRuns.TryAlign(aligner, loaded, pair, ct, out _, PairEnsemble) is not { } sampled) continue;
+            direct[c] = sampled;
+            worstByReference[c] = WorstPair(c, sampled: true);
+        }
+        var worst = worstByReference.Values.Where(w => w is not null).MaxBy(w => w!.Value.Excess);
+        if (worst is not { } w) return;
+        string own = w.Sampled ? $" (the pair's own from {PairEnsemble} sampled paths)" : "";
+        Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
+            $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone{own} differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
+            $"{w.A}/{w.C}", w.Band);
+
+        // The worst departure, for its uncertainty, over the cores shorter than c.
+        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? WorstPair(string c, bool sampled)
+        {
+            (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? worst = null;
+            if (!site.TryGetValue(c, out var sc)) return null;
+            var tc = loaded.Tables[c];
+            var specC = p.FindCore(c)!;
+            double stepC = AlignmentRuns.GridStep(p, tc);
+            double sigma = Math.Max(tie, stepC);
+            foreach (string a in cores.Where(a => a != c && Longer(c, a)))
             {
-                if (!site.TryGetValue(c, out var sc) || !direct[c].Mappings.TryGetValue(a, out var ac)) continue;
-                var tc = loaded.Tables[c];
-                var specC = p.FindCore(c)!;
-                double sigma = Math.Max(tie, AlignmentRuns.GridStep(p, tc));
-                // The part of A that C covers on the composite.
-                double lo = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA;
-                double hi = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA;
-                var (ownLo, ownHi) = PlacedByThePair(ac, direct[c].Diagnostics.GetValueOrDefault(a), ties[c], a, ta, tc, AlignmentRuns.GridStep(p, tc));
-                lo = Math.Max(lo, ownLo);
-                hi = Math.Min(hi, ownHi);
+                if (!site.TryGetValue(a, out var sa) || !direct[c].Mappings.TryGetValue(a, out var ac)) continue;
+                var ta = loaded.Tables[a];
+                var spec = p.FindCore(a)!;
+                int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
+                double stepA = AlignmentRuns.GridStep(p, ta);
+                // The part of A that C covers on the composite, and that the pair's own alignment places.
+                var (ownLo, ownHi) = PlacedByThePair(ac, direct[c].Diagnostics.GetValueOrDefault(a), ties[c], a, ta, tc, stepC);
+                double lo = Math.Max(ownLo, sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA);
+                double hi = Math.Min(ownHi, sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA);
                 for (int k = 0; k < ta.Count; k += stride)
                 {
                     double z = ta.Depths[k];
@@ -173,23 +200,25 @@ internal static class LoopClosureCheck
                     double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
                     if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
                     double mismatch = Math.Abs(d - implied);
-                    // The band only lowers the excess, so it is read (sorting the members) only where the
-                    // tie uncertainty alone would make this point the worst.
+                    // The bands only lower the excess, so they are read (sorting the members) only where
+                    // the tie uncertainty alone would make this point the worst.
                     if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
-                    // The direct alignment's own uncertainty is not sampled (an ensemble per reference would
-                    // cost more than the site's whole alignment); aligned on two cores where the site uses
-                    // all, it is at least the site's, so the difference of the two is uncertain by at
-                    // least sqrt(2) times the site's band: a lower bound, so the check stays strict.
-                    double band = Math.Sqrt(2) * BandSigma(sa, z, sc, implied);
+                    // Aligned on two cores where the site uses all, the pair's placement is uncertain by at
+                    // least the site's band; its own band, where sampled, when wider.
+                    double siteBand = BandSigma(sa, z, sc, implied);
+                    double pairBand = siteBand;
+                    if (sampled)
+                    {
+                        var (pLo, pHi) = ac.CompositeRange(z);
+                        pairBand = Math.Max(siteBand, (pHi - pLo) / (2 * 1.96));
+                    }
+                    double band = Math.Sqrt(siteBand * siteBand + pairBand * pairBand);
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
-                    if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied);
+                    if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied, sampled);
                 }
             }
+            return worst;
         }
-        if (worst is not { } w) return;
-        Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
-            $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
-            $"{w.A}/{w.C}", w.Band);
     }
 
     /// <summary>

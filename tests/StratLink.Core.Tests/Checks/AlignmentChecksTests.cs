@@ -128,6 +128,27 @@ public sealed class AlignmentChecksTests
     }
 
     [Theory]
+    // A's mapping to C alone bulges by 6 cm at A = 50 cm; the site's has no band, so on the optimal paths
+    // the limit is 3 x 1 cm (one grid step) and the pair is aligned again with its path ensemble. Its
+    // own band (half-width h) is a standard uncertainty of h / 1.96 (95 % range of a normal spread),
+    // combined with the grid step: 3 x sqrt(1 + (h / 1.96)^2).
+    [InlineData(5.0, Severity.Note)] // limit 3 x 2.74 = 8.2 cm > 6 cm
+    [InlineData(1.0, Severity.Warning)] // limit 3 x 1.12 = 3.4 cm < 6 cm
+    public void OnTheSiteScaleAPairThatWouldWarnIsJudgedAgainstItsOwnSampledBand(double band, Severity expected)
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
+        aligner.SampledBands[("C", "A")] = band;
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(expected, f.Severity);
+        Assert.Contains("differs by 6 cm", f.Message);
+        Assert.Contains("sampled paths", f.Message);
+        // Only C, whose pair warned on the optimal paths, was aligned again with an ensemble.
+        Assert.Equal(["C"], aligner.Calls.Where(c => c.Alignment.Ensemble > 0).Select(c => c.Alignment.Reference!));
+    }
+
+    [Theory]
     // A (0-100 cm) ends inside C (0-120 cm, to which A's base maps at 117 cm); its last tie, m3, is at
     // A = 75 cm. Aligned to C alone, A's base runs off along C by up to 6 cm from A = 85 cm.
     [InlineData(true, Severity.Note)] // the path may stop anywhere: beyond m3 the pair has no hold

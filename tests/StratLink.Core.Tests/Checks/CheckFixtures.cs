@@ -77,6 +77,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
     /// <summary>(reference, core) whose alignment leaves the core's top or base open: it may start (stop) at any depth of the reference.</summary>
     public Dictionary<(string Reference, string Core), (bool Begin, bool End)> OpenEnds { get; } = [];
 
+    /// <summary>(reference, core) to the half-width of the core's 95 % band when an ensemble is asked for (instead of <see cref="Band"/>).</summary>
+    public Dictionary<(string Reference, string Core), double> SampledBands { get; } = [];
+
     /// <summary>Half-width (composite depth) of every mapping's 95 % band: half the members lie that far above the median, half below.</summary>
     public double Band { get; set; }
 
@@ -100,7 +103,8 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
                 return CoreDepthOf(reference, t) + (bumps?.FirstOrDefault(b => b.Depth == x).Extra ?? 0);
             }).ToArray();
             DepthMapping Shifted(double by) => new(id, CheckFixtures.Unit, core, composite.Select(v => v + by).ToArray());
-            var members = Band > 0 ? Enumerable.Range(0, 200).Select(k => Shifted(k % 2 == 0 ? -Band : Band)).ToArray() : [];
+            double band = lp.Project.Alignment.Ensemble > 0 && SampledBands.TryGetValue((reference, id), out double sampled) ? sampled : Band;
+            var members = band > 0 ? Enumerable.Range(0, 200).Select(k => Shifted(k % 2 == 0 ? -band : band)).ToArray() : [];
             maps[id] = new MappingEnsemble(Shifted(0), members);
             var (begin, end) = OpenEnds.GetValueOrDefault((reference, id));
             diagnostics[id] = new CoreAlignmentDiagnostics { CoreId = id, Method = "test-truth", OpenBegin = begin, OpenEnd = end };
