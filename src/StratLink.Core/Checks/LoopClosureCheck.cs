@@ -162,7 +162,7 @@ internal static class LoopClosureCheck
         }
         var worst = worstByReference.Values.Where(w => w is not null).MaxBy(w => w!.Value.Excess);
         if (worst is not { } w) return;
-        string own = w.Sampled ? $" (the pair's own from {PairEnsemble} sampled paths)" : "";
+        string own = w.Sampled ? $" (the median of {PairEnsemble} sampled paths)" : "";
         Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
             $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone{own} differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
             $"{w.A}/{w.C}", w.Band);

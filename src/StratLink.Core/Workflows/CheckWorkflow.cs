@@ -26,7 +26,6 @@ public static class CheckWorkflow
     public static CheckContext Context(ICompositeAgeScale? ages, IProgress<WorkProgress>? progress) =>
         new() { Aligner = Realign, AgeScale = ages, Progress = progress };
 
-    // The checks compare best mappings; sampling an ensemble for each of their re-alignments would only cost time.
-    private static AlignmentResult Realign(LoadedProject project, CancellationToken ct) =>
-        CoreAligner.Align(project.WithProject(project.Project with { Alignment = project.Project.Alignment with { Ensemble = 0 } }), null, ct);
+    // Each check asks for the ensemble it needs (mostly none: they compare best mappings).
+    private static AlignmentResult Realign(LoadedProject project, CancellationToken ct) => CoreAligner.Align(project, null, ct);
 }
