@@ -28,7 +28,8 @@ namespace StratLink.Checks;
 /// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
 /// at least one grid step of C), else as a note. On the site scale the composite's own band at the
 /// point (from the ensemble, when there is one) is added in quadrature, and the pair's: at least the
-/// site's, and where the optimal paths would warn, the pair's own band from its sampled paths. A
+/// site's, and where the optimal paths would warn, the pair's own band from its sampled paths (then the
+/// nearer of its optimal path and their median is compared). A
 /// mapping known only to within its band agrees with another when they differ by no more than both
 /// uncertainties allow.
 /// </summary>
@@ -150,25 +151,27 @@ internal static class LoopClosureCheck
         double tie = TypicalTieSigma(p);
         // Optimal paths first; a reference whose pairs would warn is aligned again with the path
         // ensemble, so that a warning is judged against the pair's own band, not a bound on it.
-        var worstByReference = references.ToDictionary(c => c, c => WorstPair(c, sampled: false), StringComparer.Ordinal);
+        var worstByReference = references.ToDictionary(c => c, c => WorstPair(c, null), StringComparer.Ordinal);
         foreach (string c in references)
         {
             if (worstByReference[c] is not { } first || first.Excess <= p.Checks.TieMisfitSigmas) continue;
             ct.ThrowIfCancellationRequested();
             var pair = p with { Alignment = p.Alignment with { Reference = c, Scale = AlignmentScales.Reference } };
             if (AlignmentRuns.TryAlign(aligner, loaded, pair, ct, out _, PairEnsemble) is not { } sampled) continue;
-            direct[c] = sampled;
-            worstByReference[c] = WorstPair(c, sampled: true);
+            worstByReference[c] = WorstPair(c, sampled);
         }
         var worst = worstByReference.Values.Where(w => w is not null).MaxBy(w => w!.Value.Excess);
         if (worst is not { } w) return;
-        string own = w.Sampled ? $" (the median of {PairEnsemble} sampled paths)" : "";
+        string own = w.Sampled ? $" (the optimal path or the median of {PairEnsemble} sampled paths, whichever is nearer)" : "";
         Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
             $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone{own} differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
             $"{w.A}/{w.C}", w.Band);
 
-        // The worst departure, for its uncertainty, over the cores shorter than c.
-        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? WorstPair(string c, bool sampled)
+        // The worst departure, for its uncertainty, over the cores shorter than c; with the pair's
+        // sampled paths, from the nearer of its optimal path (the posterior's mode) and their median:
+        // where the two differ the pair's posterior is skewed or has several modes, and a site placement
+        // near either is one the pair's own evidence allows.
+        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? WorstPair(string c, AlignmentResult? sampled)
         {
             (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? worst = null;
             if (!site.TryGetValue(c, out var sc)) return null;
@@ -179,6 +182,7 @@ internal static class LoopClosureCheck
             foreach (string a in cores.Where(a => a != c && Longer(c, a)))
             {
                 if (!site.TryGetValue(a, out var sa) || !direct[c].Mappings.TryGetValue(a, out var ac)) continue;
+                var members = sampled?.Mappings.GetValueOrDefault(a);
                 var ta = loaded.Tables[a];
                 var spec = p.FindCore(a)!;
                 int stride = Math.Max(1, ta.Count / MaxPointsPerCore);
@@ -194,6 +198,7 @@ internal static class LoopClosureCheck
                     double implied = sc.Median.ToCoreValue(sa.Median.ToCompositeValue(z));
                     if (!Regular(ac.Median, z, ta, factor) || !Regular(sa.Median, z, ta, factor) || !Regular(sc.Median, implied, tc, factor)) continue;
                     double d = ac.Median.ToCompositeValue(z);
+                    if (members is not null && Math.Abs(members.Median.ToCompositeValue(z) - implied) < Math.Abs(d - implied)) d = members.Median.ToCompositeValue(z);
                     // Where C (or A) has no record (a gap, a disturbed stretch) at or between the two
                     // placements, the pair's own alignment had nothing to tell them apart; the site
                     // bridges it with the other cores.
@@ -207,14 +212,14 @@ internal static class LoopClosureCheck
                     // least the site's band; its own band, where sampled, when wider.
                     double siteBand = BandSigma(sa, z, sc, implied);
                     double pairBand = siteBand;
-                    if (sampled)
+                    if (members is not null)
                     {
-                        var (pLo, pHi) = ac.CompositeRange(z);
+                        var (pLo, pHi) = members.CompositeRange(z);
                         pairBand = Math.Max(siteBand, (pHi - pLo) / (2 * 1.96));
                     }
                     double band = Math.Sqrt(siteBand * siteBand + pairBand * pairBand);
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
-                    if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied, sampled);
+                    if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied, members is not null);
                 }
             }
             return worst;

@@ -66,18 +66,18 @@ public sealed class DemoProjectChecksTests(ITestOutputHelper output)
         Assert.Equal(Severity.Note, loop.Severity);
     }
 
-    private const string OverconfidentPair = "Open problem: MW19-P2 aligned to the gravity core alone is placed 5.7 cm above the truth at 193 cm of its depth with a 95 % band 6.4 cm wide (median of 100 sampled paths), while the site is within 0.1 cm of it; 5.68 cm against a limit of 3 x 1.84 cm (3.09 sigma), so the check warns on the pair's overconfident band";
-
     /// <summary>
     /// Generated sites whose gravity core runs about 300 cm past the reference's base, longer than every
     /// other core: each core is then aligned to it alone for the check (the piston cores past its lost
-    /// top, the freeze core with one tie to it), and the loops close.
+    /// top, the freeze core with one tie to it), and the loops close. On seeds 4 and 5 the optimal paths
+    /// alone would warn (up to 7.9 cm off the site, which is within 0.5 cm of the truth there), so the
+    /// pairs are sampled and judged against their own bands.
     /// </summary>
     [Theory]
     [InlineData(1)]
     [InlineData(2)]
     [InlineData(3)]
-    [InlineData(4, Skip = OverconfidentPair)]
+    [InlineData(4)]
     [InlineData(5)]
     [InlineData(6)]
     public void DeepCoreSitesCloseTheLoops(int seed)
