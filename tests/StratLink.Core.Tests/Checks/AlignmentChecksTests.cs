@@ -148,6 +148,20 @@ public sealed class AlignmentChecksTests
         Assert.Equal(["C"], aligner.Calls.Where(c => c.Alignment.Ensemble > 0).Select(c => c.Alignment.Reference!));
     }
 
+    [Fact]
+    public void OnTheSiteScaleASampledPairIsComparedByTheNearerOfItsOptimalPathAndItsMedian()
+    {
+        // The pair's optimal path bulges by 6 cm at A = 50 cm, its members' median at A = 30 cm instead
+        // (a posterior with two modes): the site agrees with one of them everywhere.
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.Distortions[("C", "A")] = [(40, 0), (50, 6), (60, 0)];
+        aligner.SampledDistortions[("C", "A")] = [(20, 0), (30, 6), (40, 0)];
+        var lp = LoadThree(OnScale(ThreeCores(0), AlignmentScales.Site));
+        var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
+        Assert.Equal(Severity.Note, f.Severity);
+        Assert.Contains("whichever is nearer", f.Message);
+    }
+
     [Theory]
     // A (0-100 cm) ends inside C (0-120 cm, to which A's base maps at 117 cm); its last tie, m3, is at
     // A = 75 cm. Aligned to C alone, A's base runs off along C by up to 6 cm from A = 85 cm.

@@ -74,6 +74,9 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
     /// <summary>(reference, core) to extra composite depth added at the core's knots (core depth, extra).</summary>
     public Dictionary<(string Reference, string Core), (double Depth, double Extra)[]> Distortions { get; } = [];
 
+    /// <summary>(reference, core) to the distortion of the median when an ensemble is asked for, instead of <see cref="Distortions"/>.</summary>
+    public Dictionary<(string Reference, string Core), (double Depth, double Extra)[]> SampledDistortions { get; } = [];
+
     /// <summary>(reference, core) whose alignment leaves the core's top or base open: it may start (stop) at any depth of the reference.</summary>
     public Dictionary<(string Reference, string Core), (bool Begin, bool End)> OpenEnds { get; } = [];
 
@@ -94,7 +97,8 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
         foreach (var (id, table) in lp.Tables)
         {
             var knots = new SortedSet<double> { table.Depths[0], table.Depths[^1] };
-            Distortions.TryGetValue((reference, id), out var bumps);
+            bool ensemble = lp.Project.Alignment.Ensemble > 0;
+            if (!(ensemble && SampledDistortions.TryGetValue((reference, id), out var bumps))) Distortions.TryGetValue((reference, id), out bumps);
             foreach (var b in bumps ?? []) knots.Add(b.Depth);
             double[] core = knots.ToArray();
             double[] composite = core.Select(x =>
@@ -103,7 +107,7 @@ internal sealed class LinearTruthAligner(IReadOnlyDictionary<string, (double Sca
                 return CoreDepthOf(reference, t) + (bumps?.FirstOrDefault(b => b.Depth == x).Extra ?? 0);
             }).ToArray();
             DepthMapping Shifted(double by) => new(id, CheckFixtures.Unit, core, composite.Select(v => v + by).ToArray());
-            double band = lp.Project.Alignment.Ensemble > 0 && SampledBands.TryGetValue((reference, id), out double sampled) ? sampled : Band;
+            double band = ensemble && SampledBands.TryGetValue((reference, id), out double sampled) ? sampled : Band;
             var members = band > 0 ? Enumerable.Range(0, 200).Select(k => Shifted(k % 2 == 0 ? -band : band)).ToArray() : [];
             maps[id] = new MappingEnsemble(Shifted(0), members);
             var (begin, end) = OpenEnds.GetValueOrDefault((reference, id));
