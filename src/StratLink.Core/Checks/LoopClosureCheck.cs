@@ -28,10 +28,9 @@ namespace StratLink.Checks;
 /// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
 /// at least one grid step of C), else as a note. On the site scale the composite's own band at the
 /// point (from the ensemble, when there is one) is added in quadrature, and the pair's: at least the
-/// site's, and where the optimal paths would warn, the pair's own band from its sampled paths (then the
-/// nearer of its optimal path and their median is compared). A
-/// mapping known only to within its band agrees with another when they differ by no more than both
-/// uncertainties allow.
+/// site's, and where the optimal paths would warn, the pair's own band from its sampled paths (seeded
+/// as the build's; then the nearer of its optimal path and their median is compared). A mapping known
+/// only to within its band agrees with another when they differ by no more than both uncertainties allow.
 /// </summary>
 internal static class LoopClosureCheck
 {
