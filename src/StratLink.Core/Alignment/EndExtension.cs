@@ -12,14 +12,14 @@ namespace StratLink.Alignment;
 /// that level decaying over one correlation length (the best predictor of a first-order
 /// autoregressive offset from its last value). The long-run ratio is the aligned part's
 /// least-squares ratio, averaged with the ties' mean ratio where there are two ties or more (two
-/// estimates of one ratio); held within a factor 2 of the ties' ratio. In ensemble members the log
-/// rate ratio departs from it as a stationary first-order autoregressive (Ornstein-Uhlenbeck)
-/// process plus the ratio's own error, so the band widens with distance from the last matched
-/// sample but the ratio stays within what the aligned part shows: its spread s and correlation
-/// length (one window) are measured on the optimal mapping's log rate ratio over adjacent windows of
-/// the aligned part, the ratio's error is s x sqrt(window / aligned length). What the same
-/// extrapolation, tried inside the aligned part, errs by beyond that walk is added as one shift per
-/// member (see <see cref="HindcastExcess"/>).
+/// estimates of one ratio); held within a factor 2 of the ties' ratio. Ensemble members add the
+/// errors of that prediction, measured on the aligned part: the long-run ratio's (s x
+/// sqrt(window / aligned length), s the spread of the optimal mapping's log rate ratio over adjacent
+/// windows), the level's (the offsets' standard deviation over the independent values in its
+/// stretch) and the offset's own departure, a first-order autoregressive process with the offsets'
+/// standard deviation and correlation length; so the band widens with distance from the last
+/// matched sample. What the same extrapolation, tried inside the aligned part, errs by beyond that
+/// is added as one shift per member (see <see cref="HindcastExcess"/>).
 /// </summary>
 internal sealed class EndExtension
 {
@@ -38,19 +38,20 @@ internal sealed class EndExtension
     /// </summary>
     private const double LevelLengths = 4;
 
-    private readonly double _top, _bottom, _gridStep, _spread, _window, _ratio, _fit, _offsetLength, _levelLength;
+    private readonly double _top, _bottom, _gridStep, _spread, _window, _ratio, _fit, _offsetLength, _offsetDeviation, _levelLength;
     private readonly bool _extendTop, _extendBottom;
 
-    /// <summary>Hindcast error beyond the walk's, in core depth at unit ratio, every <see cref="_excessLag"/> from the matched end.</summary>
+    /// <summary>Hindcast error beyond the members' modelled error, in core depth at unit ratio, every <see cref="_excessLag"/> from the matched end.</summary>
     private readonly double[] _excess;
     private readonly double _excessLag;
     private readonly IReadOnlyList<TiePoint> _ties;
 
-    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double ratio, double fit, double offsetLength,
+    private EndExtension(double top, double bottom, double gridStep, double spread, double window, double ratio, double fit, (double Length, double Deviation) offsets,
         bool extendTop, bool extendBottom, double[] excess, double excessLag, IReadOnlyList<TiePoint> ties)
     {
-        (_top, _bottom, _gridStep, _spread, _window, _ratio, _fit, _offsetLength) = (top, bottom, gridStep, spread, window, ratio, fit, offsetLength);
-        _levelLength = Math.Min(fit, Math.Max(LevelLengths * offsetLength, MinFitSteps * gridStep));
+        (_top, _bottom, _gridStep, _spread, _window, _ratio, _fit) = (top, bottom, gridStep, spread, window, ratio, fit);
+        (_offsetLength, _offsetDeviation) = offsets;
+        _levelLength = LevelLength(fit, _offsetLength, gridStep);
         (_extendTop, _extendBottom, _excess, _excessLag, _ties) = (extendTop, extendBottom, excess, excessLag, ties);
     }
 
@@ -81,9 +82,9 @@ internal sealed class EndExtension
         bool tiedRatio = ties.Select(t => t.CoreDepth).Distinct().Count() >= 2;
         double tieRatio = overhang.MeanTieRatio;
         double ratio = LongRunRatio(grid.Slope(0, grid.Count - 1), tieRatio, tiedRatio);
-        double offsetLength = grid.OffsetCorrelationLength();
-        var excess = HindcastExcess(grid, spread, window, tieRatio, tiedRatio, offsetLength, out double lag);
-        return new EndExtension(coreTop, coreBottom, gridStep, spread, window, ratio, Math.Max(length, gridStep), offsetLength,
+        var offsets = grid.Offsets();
+        var excess = HindcastExcess(grid, spread, window, tieRatio, tiedRatio, offsets, out double lag);
+        return new EndExtension(coreTop, coreBottom, gridStep, spread, window, ratio, Math.Max(length, gridStep), offsets,
             overhang.Top > 0, overhang.Bottom > 0, excess, lag, ties);
     }
 
@@ -97,19 +98,19 @@ internal sealed class EndExtension
     }
 
     /// <summary>
-    /// The continuation's error the walk does not account for, by distance: at each distance d
+    /// The continuation's error the members' modelled error does not account for, by distance: at each distance d
     /// (a step of <see cref="HindcastLag"/>), the same extrapolation is tried inside the aligned part
     /// (from each sample, the long-run ratio fitted over all of the aligned part before it, at least
     /// max(2d, 10 steps), and the level over the stretch next to it, carried d beyond it, against the
-    /// optimal mapping there; both directions), and what its RMS error exceeds the walk's standard
+    /// optimal mapping there; both directions), and what its RMS error exceeds that model's standard
     /// deviation by (in quadrature) is kept, as a running maximum so it does not shrink with
-    /// distance. The window-scale spread misses rate changes shorter than a window, which a
-    /// continuation near the matched end meets first: empirical prediction intervals from past
+    /// distance. The measured errors miss rate changes longer than the aligned part resolves and
+    /// excursions the offsets' one correlation length does not describe: empirical prediction intervals from past
     /// forecast errors (Williams and Goodman 1971, from memory). Distances are tried up to a quarter
     /// of the aligned length so that each rests on several independent stretches; beyond, the last
     /// value is held.
     /// </summary>
-    private static double[] HindcastExcess(AlignedGrid grid, double spread, double window, double tieRatio, bool tiedRatio, double offsetLength, out double lag)
+    private static double[] HindcastExcess(AlignedGrid grid, double spread, double window, double tieRatio, bool tiedRatio, (double Length, double Deviation) offsets, out double lag)
     {
         double step = grid.Step, length = grid.Length;
         lag = HindcastLag(step, length);
@@ -134,18 +135,18 @@ internal sealed class EndExtension
             double observed = count > 0 ? sum / count : 0;
             excess.Add(Math.Max(excess[^1], Math.Sqrt(Math.Max(0, observed))));
 
-            // Squared error beyond the walk's variance of the extrapolation from sample k outwards
+            // Squared error beyond the modelled variance of the extrapolation from sample k outwards
             // (sign), the ratio fitted over samples k0-k1, in core depth at unit ratio.
             double Error(int k, int sign, int k0, int k1)
             {
                 double ratio = LongRunRatio(grid.Slope(k0, k1), tieRatio, tiedRatio);
                 double fitted = (k1 - k0) * step;
-                double levelLength = Math.Min(fitted, Math.Max(LevelLengths * offsetLength, MinFitSteps * step));
+                double levelLength = LevelLength(fitted, offsets.Length, step);
                 int levelSamples = (int)Math.Floor(levelLength / step + 1e-9);
                 double level = sign > 0 ? grid.Level(k - levelSamples, k, k, ratio) : grid.Level(k, k + levelSamples, k, ratio);
-                double predicted = level + sign * ratio * d + (grid.Value(k) - level) * Math.Exp(-d / offsetLength);
+                double predicted = level + sign * ratio * d + (grid.Value(k) - level) * Math.Exp(-d / offsets.Length);
                 double error = sign * (grid.Mapping.ToCompositeValue(grid.Position(k) + sign * d) - predicted) / ratio;
-                double model = ModelDeviation(d, fitted, spread, window);
+                double model = ModelDeviation(d, fitted, spread, window, offsets, levelLength, ratio);
                 return error * error - model * model;
             }
         }
@@ -154,12 +155,24 @@ internal sealed class EndExtension
 
     private static double HindcastLag(double gridStep, double length) => Math.Max(gridStep, length / 200);
 
-    /// <summary>Standard deviation, in core depth at unit ratio, of the walk's departure after <paramref name="d"/>: the fitted mean's error times d, plus the integrated Ornstein-Uhlenbeck process.</summary>
-    private static double ModelDeviation(double d, double fit, double spread, double window)
+    private static double LevelLength(double fit, double offsetLength, double gridStep) => Math.Min(fit, Math.Max(LevelLengths * offsetLength, MinFitSteps * gridStep));
+
+    /// <summary>Variance of the level: the offsets' variance over the independent values (one per two correlation lengths) in its stretch.</summary>
+    private static double LevelVariance((double Length, double Deviation) offsets, double levelLength) =>
+        offsets.Deviation * offsets.Deviation * Math.Min(1, 2 * offsets.Length / Math.Max(levelLength, 1e-12));
+
+    /// <summary>
+    /// Standard deviation, in core depth at unit ratio, of a member's departure from the
+    /// continuation <paramref name="d"/> beyond the matched end: the long-run ratio's error times d,
+    /// the level's error (the offsets' mean over the level's stretch) and the offset's own
+    /// first-order autoregressive departure from its prediction.
+    /// </summary>
+    private static double ModelDeviation(double d, double fit, double spread, double window, (double Length, double Deviation) offsets, double levelLength, double ratio)
     {
-        double meanError = spread * Math.Sqrt(Math.Min(1, window / fit)) * d;
-        double walk = spread * spread * 2 * window * window * (d / window - 1 + Math.Exp(-d / window));
-        return Math.Sqrt(meanError * meanError + walk);
+        double ratioError = spread * Math.Sqrt(Math.Min(1, window / fit)) * d;
+        double level = LevelVariance(offsets, levelLength);
+        double offset = offsets.Deviation * offsets.Deviation * (1 - Math.Exp(-2 * d / offsets.Length));
+        return Math.Sqrt(ratioError * ratioError + (level + offset) / (ratio * ratio));
     }
 
     /// <summary>
@@ -176,7 +189,7 @@ internal sealed class EndExtension
         return (top, bottom);
     }
 
-    /// <summary>The mapping continued to the core's ends; with <paramref name="rng"/> the rate ratio varies, without it it stays at the long-run one.</summary>
+    /// <summary>The mapping continued to the core's ends; with <paramref name="rng"/> one ensemble member's, without it the prediction.</summary>
     public DepthMapping Apply(DepthMapping m, Random? rng)
     {
         var cx = m.CoreKnots.ToList();
@@ -229,14 +242,16 @@ internal sealed class EndExtension
             beyond.Add((d, shift));
         }
         var at = Enumerable.Range(1, knots).Select(k => k * distance / knots).Concat(beyond.Skip(1).Select(b => b.D)).Distinct().Order().ToArray();
-        // Log-normal departures of variance v raise the mean ratio by exp(v/2); taking v/2 off keeps
-        // the long-run ratio the members' mean, so a wider spread widens the band without moving it.
-        double meanError = _spread * Math.Sqrt(Math.Min(1, _window / _fit));
-        double logRatio = Math.Log(ratio) + (rng is null ? 0 : meanError * Normal(rng) - (meanError * meanError + _spread * _spread) / 2);
-        double departure = 0, walked = 0, reached = 0;
-        // One draw per member: the short-scale error shifts the whole continuation, growing with
-        // distance as the hindcast's does.
+        // The long-run ratio's error as a log-normal factor of mean 1, so the members' mean ratio
+        // stays the long-run one; the level's error as one shift; the offset as a first-order
+        // autoregressive process from the predicted one.
+        double ratioError = _spread * Math.Sqrt(Math.Min(1, _window / _fit));
+        double ratioFactor = rng is null ? 1 : Math.Exp(ratioError * Normal(rng) - ratioError * ratioError / 2);
+        // One draw per member: the error the model misses shifts the whole continuation, growing
+        // with distance as the hindcast's does.
         double excessDraw = rng is null ? 0 : Normal(rng);
+        double levelShift = rng is null ? 0 : Math.Sqrt(LevelVariance((_offsetLength, _offsetDeviation), _levelLength)) * Normal(rng);
+        double offset = 0, reached = 0;
         var xs = new List<double>(at.Length);
         var ys = new List<double>(at.Length);
         foreach (double d in at)
@@ -245,11 +260,10 @@ internal sealed class EndExtension
             reached = d;
             if (rng is not null)
             {
-                double rho = Math.Exp(-dx / _window);
-                departure = rho * departure + _spread * Math.Sqrt(1 - rho * rho) * Normal(rng);
-                walked += dx * (Math.Exp(logRatio + departure) - ratio);
+                double rho = Math.Exp(-dx / _offsetLength);
+                offset = rho * offset + _offsetDeviation * Math.Sqrt(1 - rho * rho) * Normal(rng);
             }
-            double placed = Centre(d) + sign * (walked + ratio * ExcessAt(d) * excessDraw) + TieShift(beyond, d);
+            double placed = Centre(d) + sign * ratio * ((ratioFactor - 1) * d + ExcessAt(d) * excessDraw) + levelShift + offset + TieShift(beyond, d);
             // Composite depth keeps increasing with core depth.
             double previous = ys.Count > 0 ? ys[^1] : y0;
             xs.Add(from + sign * d);
@@ -330,14 +344,14 @@ internal sealed class EndExtension
         }
 
         /// <summary>
-        /// Correlation length of the offsets from the least-squares line over the whole aligned part:
-        /// step x (1/2 + sum of rho_k), the sum stopped at the first non-positive rho_k (Geyer's
-        /// initial positive sequence, as for the path's autocorrelation time).
+        /// Correlation length and standard deviation of the offsets from the least-squares line over
+        /// the whole aligned part: step x (1/2 + sum of rho_k), the sum stopped at the first
+        /// non-positive rho_k (Geyer's initial positive sequence, as for the path's autocorrelation time).
         /// </summary>
-        public double OffsetCorrelationLength()
+        public (double Length, double Deviation) Offsets()
         {
             double slope = Slope(0, Count - 1);
-            if (double.IsNaN(slope)) return Step;
+            if (double.IsNaN(slope)) return (Step, 0);
             double mean = _sy[Count] / Count, mx = _sx[Count] / Count;
             var r = new double[Count];
             double c0 = 0;
@@ -346,7 +360,7 @@ internal sealed class EndExtension
                 r[k] = _y[k] - mean - slope * (Math.Min(k * Step, Length) - mx);
                 c0 += r[k] * r[k];
             }
-            if (!(c0 > 1e-12 * Math.Max(1, mean * mean) * Count)) return Step;
+            if (!(c0 > 1e-12 * Math.Max(1, mean * mean) * Count)) return (Step, 0);
             double sum = 0.5;
             for (int lag = 1; lag < Count / 2; lag++)
             {
@@ -356,7 +370,7 @@ internal sealed class EndExtension
                 if (rho <= 0) break;
                 sum += rho;
             }
-            return Step * sum;
+            return (Step * sum, Math.Sqrt(c0 / Count));
         }
     }
 }
