@@ -154,13 +154,19 @@ public static class DtwCoreAligner
             pieces[s] = drawn;
         });
         var members = new DepthMapping[options.Ensemble];
+        var aligned = new DepthMapping[options.Ensemble];
         Parallel.For(0, members.Length, parallel, e =>
         {
             var (mi, mj) = Join(pieces.Select(p => p[e]).ToArray());
-            members[e] = resolution.Spread(ToMapping(core, reference, cost, unit, mi, mj, forced), new Random(Seeds.Derive(options.Seed, core.CoreId + "/cell", e)));
+            members[e] = aligned[e] = resolution.Spread(ToMapping(core, reference, cost, unit, mi, mj, forced), new Random(Seeds.Derive(options.Seed, core.CoreId + "/cell", e)));
             if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
-        return (new MappingEnsemble(PointwiseMedian(core, unit, members), members), diagnostics);
+        if (ends is null) return (new MappingEnsemble(PointwiseMedian(core, unit, members, double.NegativeInfinity, double.PositiveInfinity), members), diagnostics);
+        // Past the matched ends the median is the continuation of the members' median, not the
+        // median of their random continuations: those are drawn around that same continuation, and
+        // a band tens of cm wide would leave a few hundred members' median off it by a cm or more.
+        var (top, bottom) = ends.MatchedSpan(aligned);
+        return (new MappingEnsemble(ends.Apply(PointwiseMedian(core, unit, members, top, bottom), null), members), diagnostics);
     }
 
     /// <summary>
@@ -453,16 +459,22 @@ public static class DtwCoreAligner
         return Thin(core.CoreId, unit, x, y);
     }
 
-    private static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members)
+    /// <summary>The members' median at every grid row from <paramref name="top"/> to <paramref name="bottom"/> (all rows where that leaves fewer than two).</summary>
+    private static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members, double top, double bottom)
     {
-        var x = new double[core.Count];
-        var y = new double[core.Count];
-        Parallel.For(0, (core.Count + 1023) / 1024, chunk =>
+        int first = 0, last = core.Count - 1;
+        while (first < last && core.DepthAt(first) < top) first++;
+        while (last > first && core.DepthAt(last) > bottom) last--;
+        if (last - first < 1) (first, last) = (0, core.Count - 1);
+        int count = last - first + 1;
+        var x = new double[count];
+        var y = new double[count];
+        Parallel.For(0, (count + 1023) / 1024, chunk =>
         {
             var v = new double[members.Length];
-            for (int i = chunk * 1024; i < Math.Min(core.Count, (chunk + 1) * 1024); i++)
+            for (int i = chunk * 1024; i < Math.Min(count, (chunk + 1) * 1024); i++)
             {
-                double z = core.DepthAt(i);
+                double z = core.DepthAt(first + i);
                 for (int e = 0; e < v.Length; e++) v[e] = members[e].ToCompositeValue(z);
                 Array.Sort(v);
                 x[i] = z;
