@@ -60,7 +60,7 @@ internal sealed class EndExtension
             spread = Math.Sqrt(logRatios.Sum(v => (v - mean) * (v - mean)) / (logRatios.Count - 1));
         }
         spread = Math.Min(spread, MaxSpread);
-        var excess = HindcastExcess(optimal, gridStep, spread, window, out double lag);
+        var excess = HindcastExcess(optimal, gridStep, spread, window, overhang.MeanTieRatio, out double lag);
         return new EndExtension(coreTop, coreBottom, gridStep, spread, window, overhang.MeanTieRatio, overhang.Top > 0, overhang.Bottom > 0, excess, lag, ties);
     }
 
@@ -76,7 +76,7 @@ internal sealed class EndExtension
     /// of the aligned length so that each rests on several independent stretches; beyond, the last
     /// value is held.
     /// </summary>
-    private static double[] HindcastExcess(DepthMapping optimal, double gridStep, double spread, double window, out double lag)
+    private static double[] HindcastExcess(DepthMapping optimal, double gridStep, double spread, double window, double tieRatio, out double lag)
     {
         var x = optimal.CoreKnots;
         double x0 = x[0], x1 = x[^1], length = x1 - x0;
@@ -94,7 +94,10 @@ internal sealed class EndExtension
                 {
                     double ya = optimal.ToCompositeValue(a);
                     double ratio = sign * (ya - optimal.ToCompositeValue(a - sign * fit)) / fit;
+                    // Held within the walk's own limits: a stretch run along one column (a squeeze
+                    // at an end) has a ratio near 0, and dividing by it is no forecast the walk makes.
                     if (!(ratio > 0)) continue;
+                    ratio = Math.Clamp(ratio, tieRatio / MaxRatioDeparture, tieRatio * MaxRatioDeparture);
                     double error = (optimal.ToCompositeValue(a + sign * d) - ya) / (sign * ratio) - d;
                     sum += error * error;
                     count++;
