@@ -16,7 +16,11 @@ namespace StratLink.Alignment;
 /// (Lisiecki and Lisiecki 2002; Lisiecki and Raymo 2005). Leaving each core out of its own stack keeps
 /// it from matching itself. The reference keeps the identity, so composite depth is still its depth
 /// where it has data; a core that runs past the reference is matched there to the cores that reach
-/// that far, and only what no other core reaches is continued at its rate ratio. All cores map to one
+/// that far, and only what no other core reaches is continued at its rate ratio. Past each end of the
+/// reference one core carries the scale (progressive alignment: the one reaching furthest, aligned
+/// only to the stack on the reference's side and continued at the cores' consensus long-run rate
+/// ratio, <see cref="ScaleContinuation"/>), the others are matched to it, and the scale's
+/// uncertainty there enters member e of every core as member e of the carrier's. All cores map to one
 /// composite, so mapping A to C directly and through B agree by construction.
 /// </summary>
 internal static class SiteAligner
@@ -82,13 +86,15 @@ internal static class SiteAligner
         }
     }
 
-    /// <summary>The cores carrying the composite scale above the reference's top and below its base (null where none runs past it by more than 1 % of the reference, at least 2 steps).</summary>
+    /// <summary>The cores carrying the composite scale above the reference's top and below its base (null where fewer than two run past it by more than 1 % of the reference, at least 2 steps).</summary>
     private readonly record struct Carriers(string? Top, string? Bottom);
 
     /// <summary>
-    /// Per end of the reference, the core its starting mapping places furthest past it: the scale
-    /// there is that core's continuation (progressive alignment: the others are matched to it, it to
-    /// the part the reference holds), so the rounds cannot drift there by cores matched to each other.
+    /// Per end of the reference that at least two cores' starting mappings place past it, the one
+    /// placed furthest: the scale there is that core's continuation (progressive alignment: the
+    /// others are matched to it, it to the part the reference holds), so the rounds cannot drift there
+    /// by cores matched to each other. A core alone past an end is continued by its own alignment,
+    /// as at the reference scale.
     /// </summary>
     private static Carriers CarriersOf(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings)
     {
@@ -96,14 +102,17 @@ internal static class SiteAligner
         double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
         string? top = null, bottom = null;
         double highest = refTop - margin, lowest = refBottom + margin;
+        int above = 0, below = 0;
         foreach (var c in members)
         {
             var map = mappings[c.CoreId].Median;
             double t = map.ToCompositeValue(c.Signals.DepthAt(0)), b = map.ToCompositeValue(c.Signals.DepthAt(c.Signals.Count - 1));
+            if (t < refTop - margin) above++;
+            if (b > refBottom + margin) below++;
             if (t < highest) (highest, top) = (t, c.CoreId);
             if (b > lowest) (lowest, bottom) = (b, c.CoreId);
         }
-        return new Carriers(top, bottom);
+        return new Carriers(above >= 2 ? top : null, below >= 2 ? bottom : null);
     }
 
     /// <summary>Each carrier's mapping past the end it carries recentred on the cores' consensus there (<see cref="ScaleContinuation.Consensus"/>).</summary>
