@@ -45,7 +45,7 @@ internal sealed class ScaleContinuation
     /// from the median.
     /// </summary>
     public static MappingEnsemble Consensus(MappingEnsemble carrier, PreparedSignals carrierCore, IReadOnlyList<(PreparedSignals Core, DepthMapping Median)> cores,
-        double refTop, double refBottom, bool below, DepthUnit unit)
+        double refTop, double refBottom, bool below, DepthUnit unit, int seed = 0)
     {
         double sign = below ? 1 : -1;
         var lines = new List<(DepthMapping Median, Line Line, double XFar)>();
@@ -64,6 +64,7 @@ internal sealed class ScaleContinuation
         int count = Math.Max(1, (int)Math.Ceiling(Math.Abs(ownFar - c.XEnd) / step));
         var xs = new double[count + 1];
         var ys = new double[count + 1];
+        var spread = new double[count + 1];
         var held = new double[lines.Count];
         for (int q = 0; q <= count; q++)
         {
@@ -84,22 +85,29 @@ internal sealed class ScaleContinuation
             }
             xs[q] = x;
             ys[q] = line + sum / weight;
+            spread[q] = Spread(held, sum / weight, lines.Count + 1);
             if (q > 0) ys[q] = below ? Math.Max(ys[q], ys[q - 1]) : Math.Min(ys[q], ys[q - 1]);
         }
         var consensus = new DepthMapping(m0.CoreId, unit, below ? xs : [.. xs.Reverse()], below ? ys : [.. ys.Reverse()]);
+        double SpreadAt(double x)
+        {
+            double r = Math.Abs(x - c.XEnd) / step;
+            int i = (int)Math.Floor(r);
+            return i >= count ? spread[count] : spread[i] + (r - i) * (spread[i + 1] - spread[i]);
+        }
         bool Past(double x) => sign * (x - c.XEnd) > 0;
         double top0 = carrierCore.DepthAt(0), bottom0 = carrierCore.DepthAt(carrierCore.Count - 1);
-        DepthMapping Recentred(DepthMapping m)
+        DepthMapping Recentred(DepthMapping m, double draw)
         {
             var kx = m.CoreKnots.Concat(m0.CoreKnots).Concat(xs).Where(x => x >= top0 && x <= bottom0).Distinct().Order().ToArray();
             var ky = new double[kx.Length];
             for (int k = 0; k < kx.Length; k++)
-                ky[k] = Past(kx[k]) ? m.ToCompositeValue(kx[k]) - m0.ToCompositeValue(kx[k]) + consensus.ToCompositeValue(kx[k]) : m.ToCompositeValue(kx[k]);
+                ky[k] = Past(kx[k]) ? m.ToCompositeValue(kx[k]) - m0.ToCompositeValue(kx[k]) + consensus.ToCompositeValue(kx[k]) + draw * SpreadAt(kx[k]) : m.ToCompositeValue(kx[k]);
             for (int k = 1; k < ky.Length; k++) ky[k] = Math.Max(ky[k], ky[k - 1]);
             return new DepthMapping(m.CoreId, m.Unit, kx, ky);
         }
-        if (carrier.Members.Count == 0) return new MappingEnsemble(Recentred(m0), []);
-        var members = carrier.Members.Select(Recentred).ToArray();
+        if (carrier.Members.Count == 0) return new MappingEnsemble(Recentred(m0, 0), []);
+        var members = carrier.Members.Select((m, e) => Recentred(m, Normal(new Random(Seeds.Derive(seed, carrierCore.CoreId + (below ? "/scale-below" : "/scale-above"), e))))).ToArray();
         return new MappingEnsemble(DtwCoreAligner.PointwiseMedian(carrierCore, unit, members), members);
     }
 
@@ -143,6 +151,28 @@ internal sealed class ScaleContinuation
         }
         for (int k = 1; k < cy.Count; k++) cy[k] = Math.Max(cy[k], cy[k - 1]);
         return new DepthMapping(member.CoreId, member.Unit, [.. cx], [.. cy]);
+    }
+
+    /// <summary>
+    /// How far the reference's own column may lie from the consensus: the cores' lines scatter about
+    /// it by their sample standard deviation (<paramref name="offsets"/> of the others from the
+    /// carrier's line, the carrier's own 0, about their mean <paramref name="mean"/>), and the
+    /// reference's column is one more record of the same kind, off the mean of <paramref name="cores"/>
+    /// by that standard deviation times sqrt(1 + 1 / cores) (a prediction interval for a new
+    /// observation, from memory).
+    /// </summary>
+    private static double Spread(double[] offsets, double mean, int cores)
+    {
+        if (cores < 2) return 0;
+        double sum = mean * mean;
+        foreach (double d in offsets) sum += (d - mean) * (d - mean);
+        return Math.Sqrt(sum / (cores - 1) * (1 + 1.0 / cores));
+    }
+
+    private static double Normal(Random rng)
+    {
+        double u1 = 1 - rng.NextDouble(), u2 = rng.NextDouble();
+        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
     }
 
     /// <summary>

@@ -59,7 +59,7 @@ internal static class SiteAligner
         {
             last = Round(reference, members, mappings, carriers, options, unit, ct);
             Apply(members, mappings, diagnostics, last, rounds);
-            ContinueCarriers(reference, members, mappings, carriers, unit);
+            ContinueCarriers(reference, members, mappings, carriers, unit, options.Seed);
             ShareScalePastReference(reference, members, mappings, carriers, unit);
         }
         foreach (var n in last) findings.AddRange(n.Findings);
@@ -116,7 +116,7 @@ internal static class SiteAligner
     }
 
     /// <summary>Each carrier's mapping past the end it carries recentred on the cores' consensus there (<see cref="ScaleContinuation.Consensus"/>).</summary>
-    private static void ContinueCarriers(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DepthUnit unit)
+    private static void ContinueCarriers(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DepthUnit unit, int seed = 0)
     {
         double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
         foreach (var (carrier, below) in (ReadOnlySpan<(string?, bool)>)[(carriers.Top, false), (carriers.Bottom, true)])
@@ -124,7 +124,7 @@ internal static class SiteAligner
             if (carrier is null) continue;
             var c = members.First(m => m.CoreId == carrier);
             var cores = members.Select(m => (m.Signals, mappings[m.CoreId].Median)).ToList();
-            mappings[carrier] = ScaleContinuation.Consensus(mappings[carrier], c.Signals, cores, refTop, refBottom, below, unit);
+            mappings[carrier] = ScaleContinuation.Consensus(mappings[carrier], c.Signals, cores, refTop, refBottom, below, unit, seed);
         }
     }
 

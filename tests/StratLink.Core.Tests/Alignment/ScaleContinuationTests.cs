@@ -37,6 +37,26 @@ public class ScaleContinuationTests
     }
 
     [Fact]
+    public void The_scale_past_the_base_is_uncertain_by_how_far_the_cores_lines_scatter()
+    {
+        var c = Core("C", 301);
+        var k = Core("K", 251);
+        var carrier = Map("C", (0, 0), (300, 300));
+        var other = Map("K", (0, 0), (200, 100), (250, 130));
+        var members = Enumerable.Repeat(carrier, 2000).ToArray();
+        var result = ScaleContinuation.Consensus(new MappingEnsemble(carrier, members), c, [(c, carrier), (k, other)], 0, 100, below: true, Cm, seed: 11);
+        // At 120 cm the offsets are 0 (C) and -3.33 (K) about their mean -1.67: sample sd 2.357, times
+        // sqrt(1 + 1/2) for a new record, 2.887. Tolerance 5 %: three standard errors of a standard
+        // deviation from 2000 normal draws (relative 1 / sqrt(2 x 2000) = 1.6 %), fixed seed.
+        var at120 = result.Members.Select(m => m.ToCompositeValue(120)).ToArray();
+        double mean = at120.Average(), sd = Math.Sqrt(at120.Sum(v => (v - mean) * (v - mean)) / (at120.Length - 1));
+        Assert.Equal(Math.Sqrt(50.0 / 6), sd, 0.05 * Math.Sqrt(50.0 / 6));
+        Assert.Equal(120 - 10.0 / 6, mean, 0.2); // 3 standard errors of the mean (2.887 / sqrt 2000 = 0.065)
+        // Inside the reference no member moves.
+        Assert.All(result.Members, m => Assert.Equal(50, m.ToCompositeValue(50), 1e-9));
+    }
+
+    [Fact]
     public void Member_e_of_every_core_is_moved_as_member_e_of_the_carrier_moves_the_scale()
     {
         var carrier = new MappingEnsemble(Map("C", (0, 0), (300, 300)),
