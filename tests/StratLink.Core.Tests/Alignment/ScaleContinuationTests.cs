@@ -18,13 +18,13 @@ public class ScaleContinuationTests
     private static DepthMapping Map(string id, params (double X, double Y)[] knots) =>
         new(id, Cm, [.. knots.Select(k => k.X)], [.. knots.Select(k => k.Y)]);
 
+    private static (PreparedSignals C, PreparedSignals K, DepthMapping Carrier, DepthMapping Other) Site() =>
+        (Core("C", 301), Core("K", 251), Map("C", (0, 0), (300, 300)), Map("K", (0, 0), (200, 100), (250, 130)));
+
     [Fact]
     public void The_carrier_past_the_base_follows_the_cores_mean_long_run_line_at_the_levels_they_share()
     {
-        var c = Core("C", 301);
-        var k = Core("K", 251);
-        var carrier = Map("C", (0, 0), (300, 300));
-        var other = Map("K", (0, 0), (200, 100), (250, 130));
+        var (c, k, carrier, other) = Site();
         var result = ScaleContinuation.Consensus(new MappingEnsemble(carrier, []), c, [(c, carrier), (k, other)], 0, 100, below: true, Cm).Median;
         // Tolerance: arithmetic only. Inside the reference nothing moves.
         Assert.Equal(50, result.ToCompositeValue(50), 1e-9);
@@ -39,10 +39,7 @@ public class ScaleContinuationTests
     [Fact]
     public void The_scale_past_the_base_is_uncertain_by_how_far_the_cores_lines_scatter()
     {
-        var c = Core("C", 301);
-        var k = Core("K", 251);
-        var carrier = Map("C", (0, 0), (300, 300));
-        var other = Map("K", (0, 0), (200, 100), (250, 130));
+        var (c, k, carrier, other) = Site();
         var members = Enumerable.Repeat(carrier, 2000).ToArray();
         var result = ScaleContinuation.Consensus(new MappingEnsemble(carrier, members), c, [(c, carrier), (k, other)], 0, 100, below: true, Cm, seed: 11);
         // At 120 cm the offsets are 0 (C) and -3.33 (K) about their mean -1.67: sample sd 2.357, times
