@@ -26,6 +26,10 @@ namespace StratLink.Alignment;
 /// Each sampled path is then read no more finely than its cells and the records' sampling resolve
 /// (<see cref="MatchResolution"/>).
 /// </para>
+/// <para>
+/// Aligned to a stack of other cores (site rounds), a <c>placement</c> (the core's mapping from the
+/// previous round) also decides where the stack is padded (<see cref="CoreOverhang.Of"/>).
+/// </para>
 /// </summary>
 public static class DtwCoreAligner
 {
