@@ -8,8 +8,9 @@ namespace StratLink.Alignment;
 /// reference where the records stop matching instead of squeezing the surplus onto its end; missing
 /// cells cost the neutral level, so the padding neither attracts nor repels the path.
 /// </summary>
-/// <param name="Slack">Cells of padding beyond where the core's padded ends are expected (the band half-width).</param>
-internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRatio = 1, int Slack = 0)
+/// <param name="TopSlack">Cells of padding above where the core's top is expected, where a placement decided the padding (the band half-width; 0 otherwise).</param>
+/// <param name="BottomSlack">The same below the core's base.</param>
+internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRatio = 1, int TopSlack = 0, int BottomSlack = 0)
 {
     public bool Any => Top > 0 || Bottom > 0;
 
@@ -52,7 +53,8 @@ internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRati
         int bottom = byLine.Bottom > 0 ? byLine.Bottom : Math.Min(below, lineBelow) > margin ? (int)Math.Ceiling(Math.Max(below, lineBelow)) + w : 0;
         if (top == byLine.Top && bottom == byLine.Bottom) return byLine;
         double ratio = byLine.Any ? byLine.TieRatio : (placement.ToCompositeValue(core.DepthAt(n - 1)) - placement.ToCompositeValue(core.DepthAt(0))) / Math.Max(1e-12, core.DepthAt(n - 1) - core.DepthAt(0));
-        return new CoreOverhang(top, bottom, ratio > 0 ? ratio : 1, w);
+        // The ties' line misses an end by up to a band half-width, so only a placement's end is expected to be where it says.
+        return new CoreOverhang(top, bottom, ratio > 0 ? ratio : 1, top != byLine.Top ? w : 0, bottom != byLine.Bottom ? w : 0);
     }
 
     private static CoreOverhang FromLine(PreparedSignals core, PreparedSignals reference, IReadOnlyList<TiePoint> ties, int w, DepthUnit unit)
@@ -66,7 +68,7 @@ internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRati
         // left to the band as before. Only what lies outside beyond the line's own error counts.
         if (Math.Max(0, above - w) + Math.Max(0, below - w) > 0.5 * n) return default;
         double ratio = (line.ToCompositeValue(core.DepthAt(n - 1)) - line.ToCompositeValue(core.DepthAt(0))) / Math.Max(1e-12, core.DepthAt(n - 1) - core.DepthAt(0));
-        return new CoreOverhang(above > w ? (int)Math.Ceiling(above) + w : 0, below > w ? (int)Math.Ceiling(below) + w : 0, ratio > 0 ? ratio : 1, w);
+        return new CoreOverhang(above > w ? (int)Math.Ceiling(above) + w : 0, below > w ? (int)Math.Ceiling(below) + w : 0, ratio > 0 ? ratio : 1);
     }
 
     /// <summary>Cells by which <paramref name="map"/> places the core's top above and its base below the reference.</summary>

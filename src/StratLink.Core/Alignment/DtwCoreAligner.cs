@@ -48,7 +48,7 @@ public static class DtwCoreAligner
         var boxes = TieBoxes(core, reference, ties, findings);
         var resolution = new MatchResolution(core, unpadded, boxes.Select(b => core.DepthAt(b.I)));
         options = ResolveOpenEnds(options, boxes, n, m, unit, overhang);
-        var centre = CentreLine(boxes, n, m, options, unit, overhang);
+        var centre = CentreLine(boxes, n, m, options, unit, overhang, againstStack: placement is not null);
         (core, reference) = StandardiseOverOverlap(core, reference, centre, recorded0, recorded1, options.RobustStandardise);
         var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         double neutral = NeutralCost(cost, centre, n, m);
@@ -262,18 +262,20 @@ public static class DtwCoreAligner
 
     /// <summary>
     /// The straight-line-ties mapping in grid cells (row to column); the corners join it at closed
-    /// ends. At a padded end the line joins where the core's end is expected, inside the padding's
-    /// slack, not the padded corner: the slack (a band half-width) would otherwise tilt the line and,
-    /// with the other end open, the ratio it is continued at beyond the last tie there.
+    /// ends. Against a stack (<paramref name="againstStack"/>, site rounds) an end padded from the
+    /// core's placement joins where the placement puts it, inside the padding's slack, not the padded
+    /// corner: the slack (a band half-width) would otherwise tilt the line and, with the other end
+    /// open, the ratio it is continued at beyond the last tie there. Elsewhere the corners are kept.
     /// </summary>
-    private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit, CoreOverhang overhang)
+    private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit, CoreOverhang overhang, bool againstStack)
     {
+        int top = againstStack ? overhang.TopSlack : 0, bottom = againstStack ? overhang.BottomSlack : 0;
         var knots = boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList();
-        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, overhang.Top > 0 ? overhang.Slack : 0, 0, ""));
-        // A single tie with both ends open gives no rate ratio: the line runs through it at ratio 1
-        // (as between cores of one basin with similar rates), not to the far corner, which over a
-        // long stack would lay the band of a short core across all of it.
-        if (o.OpenEnd != true || boxes.Count == 0 && knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1 - (overhang.Bottom > 0 ? overhang.Slack : 0), 0, ""));
+        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, top, 0, ""));
+        // Against a stack, a single tie with both ends open gives no rate ratio: the line runs through
+        // it at ratio 1 (as between cores of one basin with similar rates), not to the far corner,
+        // which over a long stack would lay the band of a short core across all of it.
+        if (o.OpenEnd != true || knots.Count < 2 && (boxes.Count == 0 || !againstStack)) knots.Add(new TiePoint("", n - 1, m - 1 - bottom, 0, ""));
         knots = knots.DistinctBy(k => k.CoreDepth).ToList();
         return TieNetwork.StraightLines("grid", unit, knots, 0, n - 1);
     }
