@@ -6,7 +6,8 @@ namespace StratLink.Alignment;
 /// The composite scale past one end of the reference (above its top or below its base), where no
 /// record of the reference fixes it: there it is the continuation of the core reaching furthest
 /// past that end (the carrier), aligned to what the reference holds and continued with a band
-/// widening with distance (<see cref="EndExtension"/>'s members) about the consensus of the cores
+/// widening with distance (<see cref="EndExtension"/>'s members, plus the cores' scatter about the
+/// consensus) about the consensus of the cores
 /// there, each continued at its long-run rate ratio (<see cref="Consensus"/>): the reference's
 /// unrecovered column keeps rate wiggles no core shows, so over hundreds of cm the mean ratio over
 /// the whole shared stretch forecasts it better than the ratio next to the reference's end, and
@@ -42,7 +43,8 @@ internal sealed class ScaleContinuation
     /// medians match to it, less the carrier's line (held at its last value past a core's end, so the
     /// consensus stays continuous). Each core's own rate wiggles against the reference then average
     /// out over the cores, leaving the reference's unrecovered ones. Each member keeps its departure
-    /// from the median.
+    /// from the median and adds one normal draw (seeded from <paramref name="seed"/>, the carrier and
+    /// the member's index) times the cores' scatter at each sample (<see cref="Spread"/>).
     /// </summary>
     public static MappingEnsemble Consensus(MappingEnsemble carrier, PreparedSignals carrierCore, IReadOnlyList<(PreparedSignals Core, DepthMapping Median)> cores,
         double refTop, double refBottom, bool below, DepthUnit unit, int seed = 0)
