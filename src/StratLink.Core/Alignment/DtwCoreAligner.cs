@@ -26,17 +26,21 @@ namespace StratLink.Alignment;
 /// Each sampled path is then read no more finely than its cells and the records' sampling resolve
 /// (<see cref="MatchResolution"/>).
 /// </para>
+/// <para>
+/// Aligned to a stack of other cores (site rounds), a <c>placement</c> (the core's mapping from the
+/// previous round) also decides where the stack is padded (<see cref="CoreOverhang.Of"/>).
+/// </para>
 /// </summary>
 public static class DtwCoreAligner
 {
     public static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics) Align(
         PreparedSignals core, PreparedSignals reference, double[] weights, IReadOnlyList<TiePoint> ties,
-        DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct = default)
+        DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct = default, DepthMapping? placement = null)
     {
         if (core.Signals.Length != weights.Length || reference.Signals.Length != weights.Length)
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
-        var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit);
+        var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit, placement);
         var unpadded = reference;
         int recorded0 = overhang.Top, recorded1 = overhang.Top + reference.Count - 1;
         if (overhang.Any) reference = overhang.Pad(reference);
@@ -44,7 +48,7 @@ public static class DtwCoreAligner
         var boxes = TieBoxes(core, reference, ties, findings);
         var resolution = new MatchResolution(core, unpadded, boxes.Select(b => core.DepthAt(b.I)));
         options = ResolveOpenEnds(options, boxes, n, m, unit, overhang);
-        var centre = CentreLine(boxes, n, m, options, unit);
+        var centre = CentreLine(boxes, n, m, options, unit, overhang, againstStack: placement is not null);
         (core, reference) = StandardiseOverOverlap(core, reference, centre, recorded0, recorded1, options.RobustStandardise);
         var cost = new SignalCost(core.Values, reference.Values, weights, 0);
         double neutral = NeutralCost(cost, centre, n, m);
@@ -262,12 +266,22 @@ public static class DtwCoreAligner
         return o with { OpenBegin = o.OpenBegin ?? begin, OpenEnd = o.OpenEnd ?? end };
     }
 
-    /// <summary>The straight-line-ties mapping in grid cells (row to column); the corners join it at closed ends.</summary>
-    private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit)
+    /// <summary>
+    /// The straight-line-ties mapping in grid cells (row to column); the corners join it at closed
+    /// ends. Against a stack (<paramref name="againstStack"/>, site rounds) an end padded from the
+    /// core's placement joins where the placement puts it, inside the padding's slack, not the padded
+    /// corner: the slack (a band half-width) would otherwise tilt the line and, with the other end
+    /// open, the ratio it is continued at beyond the last tie there. Elsewhere the corners are kept.
+    /// </summary>
+    private static DepthMapping CentreLine(List<TieBox> boxes, int n, int m, DtwCoreOptions o, DepthUnit unit, CoreOverhang overhang, bool againstStack)
     {
+        int top = againstStack ? overhang.TopSlack : 0, bottom = againstStack ? overhang.BottomSlack : 0;
         var knots = boxes.Select(b => new TiePoint("", b.I, b.J, 0, "")).ToList();
-        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, 0, 0, ""));
-        if (o.OpenEnd != true || knots.Count < 2) knots.Add(new TiePoint("", n - 1, m - 1, 0, ""));
+        if (o.OpenBegin != true || knots.Count == 0) knots.Insert(0, new TiePoint("", 0, top, 0, ""));
+        // Against a stack, a single tie with both ends open gives no rate ratio: the line runs through
+        // it at ratio 1 (as between cores of one basin with similar rates), not to the far corner,
+        // which over a long stack would lay the band of a short core across all of it.
+        if (o.OpenEnd != true || knots.Count < 2 && (boxes.Count == 0 || !againstStack)) knots.Add(new TiePoint("", n - 1, m - 1 - bottom, 0, ""));
         knots = knots.DistinctBy(k => k.CoreDepth).ToList();
         return TieNetwork.StraightLines("grid", unit, knots, 0, n - 1);
     }
@@ -460,7 +474,7 @@ public static class DtwCoreAligner
     }
 
     /// <summary>The members' median at every grid row from <paramref name="top"/> to <paramref name="bottom"/> (all rows where that leaves fewer than two).</summary>
-    private static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members, double top, double bottom)
+    internal static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members, double top, double bottom)
     {
         int first = 0, last = core.Count - 1;
         while (first < last && core.DepthAt(first) < top) first++;

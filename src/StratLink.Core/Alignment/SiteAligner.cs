@@ -16,7 +16,11 @@ namespace StratLink.Alignment;
 /// (Lisiecki and Lisiecki 2002; Lisiecki and Raymo 2005). Leaving each core out of its own stack keeps
 /// it from matching itself. The reference keeps the identity, so composite depth is still its depth
 /// where it has data; a core that runs past the reference is matched there to the cores that reach
-/// that far, and only what no other core reaches is continued at its rate ratio. All cores map to one
+/// that far, and only what no other core reaches is continued at its rate ratio. Past each end of the
+/// reference one core carries the scale (progressive alignment: the one reaching furthest, aligned
+/// only to the stack on the reference's side and continued at the cores' consensus long-run rate
+/// ratio, <see cref="ScaleContinuation"/>), the others are matched to it, and the scale's
+/// uncertainty there enters member e of every core as member e of the carrier's. All cores map to one
 /// composite, so mapping A to C directly and through B agree by construction.
 /// </summary>
 internal static class SiteAligner
@@ -40,19 +44,23 @@ internal static class SiteAligner
     {
         var optimalOnly = options with { Ensemble = 0 };
         StartFromTiesWhereMostlyOutside(reference, members, mappings, unit);
+        var carriers = CarriersOf(reference, members, mappings);
         int rounds = 0;
         bool settled = false;
         var last = Array.Empty<(MappingEnsemble, CoreAlignmentDiagnostics, FindingList Findings)>();
         while (!settled && rounds < MaxRounds)
         {
             rounds++;
-            last = Round(reference, members, mappings, optimalOnly, unit, ct);
+            last = Round(reference, members, mappings, carriers, optimalOnly, unit, ct);
             settled = Apply(members, mappings, diagnostics, last, rounds) <= reference.Step;
+            ContinueCarriers(reference, members, mappings, carriers, unit);
         }
         if (options.Ensemble > 0)
         {
-            last = Round(reference, members, mappings, options, unit, ct);
+            last = Round(reference, members, mappings, carriers, options, unit, ct);
             Apply(members, mappings, diagnostics, last, rounds);
+            ContinueCarriers(reference, members, mappings, carriers, unit, options.Seed);
+            ShareScalePastReference(reference, members, mappings, carriers, unit);
         }
         foreach (var n in last) findings.AddRange(n.Findings);
         return (rounds, settled);
@@ -78,9 +86,77 @@ internal static class SiteAligner
         }
     }
 
-    /// <summary>Every member aligned to the stack of all the others as <paramref name="mappings"/> place them (their medians).</summary>
+    /// <summary>The cores carrying the composite scale above the reference's top and below its base (null where fewer than two run past it by more than 1 % of the reference, at least 2 steps).</summary>
+    private readonly record struct Carriers(string? Top, string? Bottom);
+
+    /// <summary>
+    /// Per end of the reference that at least two cores' starting mappings place past it, the one
+    /// placed furthest: the scale there is that core's continuation (progressive alignment: the
+    /// others are matched to it, it to the part the reference holds), so the rounds cannot drift there
+    /// by cores matched to each other. A core alone past an end is continued by its own alignment,
+    /// as at the reference scale.
+    /// </summary>
+    private static Carriers CarriersOf(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings)
+    {
+        double margin = Math.Max(2, 0.01 * reference.Count) * reference.Step;
+        double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
+        string? top = null, bottom = null;
+        double highest = refTop - margin, lowest = refBottom + margin;
+        int above = 0, below = 0;
+        foreach (var c in members)
+        {
+            var map = mappings[c.CoreId].Median;
+            double t = map.ToCompositeValue(c.Signals.DepthAt(0)), b = map.ToCompositeValue(c.Signals.DepthAt(c.Signals.Count - 1));
+            if (t < refTop - margin) above++;
+            if (b > refBottom + margin) below++;
+            if (t < highest) (highest, top) = (t, c.CoreId);
+            if (b > lowest) (lowest, bottom) = (b, c.CoreId);
+        }
+        return new Carriers(above >= 2 ? top : null, below >= 2 ? bottom : null);
+    }
+
+    /// <summary>Each carrier's mapping past the end it carries recentred on the cores' consensus there (<see cref="ScaleContinuation.Consensus"/>).</summary>
+    private static void ContinueCarriers(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DepthUnit unit, int seed = 0)
+    {
+        double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
+        foreach (var (carrier, below) in (ReadOnlySpan<(string?, bool)>)[(carriers.Top, false), (carriers.Bottom, true)])
+        {
+            if (carrier is null) continue;
+            var c = members.First(m => m.CoreId == carrier);
+            var cores = members.Select(m => (m.Signals, mappings[m.CoreId].Median)).ToList();
+            mappings[carrier] = ScaleContinuation.Consensus(mappings[carrier], c.Signals, cores, refTop, refBottom, below, unit, seed);
+        }
+    }
+
+    /// <summary>Every member of the other cores moved past each end of the reference as the carrier's member of the same index moves the scale there (<see cref="ScaleContinuation"/>); their medians taken again.</summary>
+    private static void ShareScalePastReference(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DepthUnit unit)
+    {
+        var ends = new List<(string Carrier, ScaleContinuation Scale)>();
+        if (carriers.Top is { } top && ScaleContinuation.Of(mappings[top], reference.DepthAt(0), below: false) is { } above) ends.Add((top, above));
+        if (carriers.Bottom is { } bottom && ScaleContinuation.Of(mappings[bottom], reference.DepthAt(reference.Count - 1), below: true) is { } below) ends.Add((bottom, below));
+        if (ends.Count == 0) return;
+        foreach (var c in members)
+        {
+            var mine = ends.Where(x => x.Carrier != c.CoreId).Select(x => x.Scale).ToList();
+            var ensemble = mappings[c.CoreId];
+            if (mine.Count == 0 || ensemble.Members.Count == 0) continue;
+            var moved = new DepthMapping[ensemble.Members.Count];
+            for (int e = 0; e < moved.Length; e++)
+            {
+                moved[e] = ensemble.Members[e];
+                foreach (var scale in mine) moved[e] = scale.Apply(moved[e], e);
+            }
+            mappings[c.CoreId] = new MappingEnsemble(DtwCoreAligner.PointwiseMedian(c.Signals, unit, moved, double.NegativeInfinity, double.PositiveInfinity), moved);
+        }
+    }
+
+    /// <summary>
+    /// Every member aligned to the stack of all the others as <paramref name="mappings"/> place them
+    /// (their medians); a carrier only to the part of the stack on the reference's side of the end it
+    /// carries, beyond which it is continued.
+    /// </summary>
     private static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[] Round(PreparedSignals reference, IReadOnlyList<Member> members,
-        Dictionary<string, MappingEnsemble> mappings, DtwCoreOptions options, DepthUnit unit, CancellationToken ct)
+        Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DtwCoreOptions options, DepthUnit unit, CancellationToken ct)
     {
         var current = mappings.ToDictionary(kv => kv.Key, kv => kv.Value.Median, StringComparer.Ordinal);
         var next = new (MappingEnsemble, CoreAlignmentDiagnostics, FindingList)[members.Count];
@@ -89,11 +165,13 @@ internal static class SiteAligner
             var c = members[k];
             var others = new List<(PreparedSignals, DepthMapping)> { (reference, current[reference.CoreId]) };
             others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
-            var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step).Select(c.Signals.Signals);
+            double from = c.CoreId == carriers.Top ? reference.DepthAt(0) : double.NegativeInfinity;
+            double to = c.CoreId == carriers.Bottom ? reference.DepthAt(reference.Count - 1) : double.PositiveInfinity;
+            var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step, from, to).Select(c.Signals.Signals);
             var local = new FindingList();
             using (StageTimes.Measure("align"))
             {
-                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct);
+                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct, current[c.CoreId]);
                 next[k] = (m, d, local);
             }
         });
@@ -121,16 +199,18 @@ internal static class SiteAligner
 
     /// <summary>
     /// Signals of <paramref name="cores"/> on the composite grid (the reference's step, spanning every
-    /// core's mapped extent): at each row the mean, over cores reaching it, of the core's value at the
-    /// core depth the mapping gives there (linear between grid rows; missing where either is).
+    /// core's mapped extent within <paramref name="from"/>-<paramref name="to"/>): at each row the mean, over
+    /// cores reaching it, of the core's value at the core depth the mapping gives there (linear between
+    /// grid rows; missing where either is).
     /// </summary>
-    internal static PreparedSignals Stack(string id, string[] signals, IReadOnlyList<(PreparedSignals Signals, DepthMapping Map)> cores, double step)
+    internal static PreparedSignals Stack(string id, string[] signals, IReadOnlyList<(PreparedSignals Signals, DepthMapping Map)> cores, double step,
+        double from = double.NegativeInfinity, double to = double.PositiveInfinity)
     {
         double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
         foreach (var (s, map) in cores)
         {
-            top = Math.Min(top, map.ToCompositeValue(s.DepthAt(0)));
-            bottom = Math.Max(bottom, map.ToCompositeValue(s.DepthAt(s.Count - 1)));
+            top = Math.Min(top, Math.Max(from, map.ToCompositeValue(s.DepthAt(0))));
+            bottom = Math.Max(bottom, Math.Min(to, map.ToCompositeValue(s.DepthAt(s.Count - 1))));
         }
         top = Math.Floor(top / step) * step;
         int count = (int)Math.Ceiling((bottom - top) / step - 1e-9) + 1, dims = signals.Length;
@@ -139,8 +219,8 @@ internal static class SiteAligner
         foreach (var (s, map) in cores)
         {
             var own = s.Select(signals);
-            int k0 = Math.Max(0, (int)Math.Ceiling((map.ToCompositeValue(s.DepthAt(0)) - top) / step - 1e-9));
-            int k1 = Math.Min(count - 1, (int)Math.Floor((map.ToCompositeValue(s.DepthAt(s.Count - 1)) - top) / step + 1e-9));
+            int k0 = Math.Max(0, (int)Math.Ceiling((Math.Max(from, map.ToCompositeValue(s.DepthAt(0))) - top) / step - 1e-9));
+            int k1 = Math.Min(count - 1, (int)Math.Floor((Math.Min(to, map.ToCompositeValue(s.DepthAt(s.Count - 1))) - top) / step + 1e-9));
             for (int k = k0; k <= k1; k++)
             {
                 double r = (map.ToCoreValue(top + k * step) - s.Top) / s.Step;

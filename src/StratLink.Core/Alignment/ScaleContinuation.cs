@@ -1,0 +1,215 @@
+using StratLink.Quantities;
+
+namespace StratLink.Alignment;
+
+/// <summary>
+/// The composite scale past one end of the reference (above its top or below its base), where no
+/// record of the reference fixes it: there it is the continuation of the core reaching furthest
+/// past that end (the carrier), aligned to what the reference holds and continued with a band
+/// widening with distance (<see cref="EndExtension"/>'s members, plus the cores' scatter about the
+/// consensus) about the consensus of the cores
+/// there, each continued at its long-run rate ratio (<see cref="Consensus"/>): the reference's
+/// unrecovered column keeps rate wiggles no core shows, so over hundreds of cm the mean ratio over
+/// the whole shared stretch forecasts it better than the ratio next to the reference's end, and
+/// the mean over several cores better than any one. The other cores there are
+/// matched to the carrier's median, so their own members carry only their matching uncertainty;
+/// this adds the scale's: member e of every core is moved as member e of the carrier departs from
+/// the carrier's median (y to carrier_e(carrier^-1(y)), less that member's departure at the
+/// reference's end, which is matching jitter and not the scale's), one perturbation of the scale
+/// per member index shared by all cores, so member e stays consistent across cores. A common
+/// reference for the shared perturbation is how stacks carry one age model's uncertainty into every
+/// record tuned to it (Lisiecki and Raymo 2005, from memory).
+/// </summary>
+internal sealed class ScaleContinuation
+{
+    private readonly DepthMapping _carrier;
+    private readonly IReadOnlyList<DepthMapping> _members;
+    private readonly double _end, _carrierAtEnd;
+    private readonly bool _below;
+
+    private ScaleContinuation(MappingEnsemble carrier, double end, bool below)
+    {
+        (_carrier, _members, _end, _below) = (carrier.Median, carrier.Members, end, below);
+        _carrierAtEnd = _carrier.ToCoreValue(end);
+    }
+
+    /// <summary>
+    /// <paramref name="carrier"/> past the reference's end (<paramref name="refBottom"/> when
+    /// <paramref name="below"/>, else <paramref name="refTop"/>) recentred on the consensus of every
+    /// core reaching past it (<paramref name="cores"/>: prepared signals and current median, the
+    /// carrier among them). Each core's line is its long-run rate ratio (<see cref="Line"/>); at each
+    /// sample of the carrier the consensus is the carrier's line plus the mean, weighted by the length
+    /// each core shares with the reference, of where the other cores' lines put the level their
+    /// medians match to it, less the carrier's line (held at its last value past a core's end, so the
+    /// consensus stays continuous). Each core's own rate wiggles against the reference then average
+    /// out over the cores, leaving the reference's unrecovered ones. Each member keeps its departure
+    /// from the median and adds one normal draw (seeded from <paramref name="seed"/>, the carrier and
+    /// the member's index) times the cores' scatter at each sample (<see cref="Spread"/>).
+    /// </summary>
+    public static MappingEnsemble Consensus(MappingEnsemble carrier, PreparedSignals carrierCore, IReadOnlyList<(PreparedSignals Core, DepthMapping Median)> cores,
+        double refTop, double refBottom, bool below, DepthUnit unit, int seed = 0)
+    {
+        double sign = below ? 1 : -1;
+        var lines = new List<(DepthMapping Median, Line Line, double XFar)>();
+        Line? own = null;
+        double ownFar = 0;
+        foreach (var (core, median) in cores)
+        {
+            if (Line.Of(core, median, refTop, refBottom, below) is not { } line) continue;
+            double xFar = below ? core.DepthAt(core.Count - 1) : core.DepthAt(0);
+            if (ReferenceEquals(core, carrierCore)) (own, ownFar) = (line, xFar);
+            else lines.Add((median, line, xFar));
+        }
+        if (own is not { } c) return carrier;
+        var m0 = carrier.Median;
+        double step = carrierCore.Step;
+        int count = Math.Max(1, (int)Math.Ceiling(Math.Abs(ownFar - c.XEnd) / step));
+        var xs = new double[count + 1];
+        var ys = new double[count + 1];
+        var spread = new double[count + 1];
+        var held = new double[lines.Count];
+        for (int q = 0; q <= count; q++)
+        {
+            double x = c.XEnd + sign * Math.Min(q * step, Math.Abs(ownFar - c.XEnd));
+            double line = c.At(x), y = m0.ToCompositeValue(x);
+            double sum = 0, weight = c.Weight;
+            for (int k = 0; k < lines.Count; k++)
+            {
+                var l = lines[k];
+                double reached = l.Median.ToCompositeValue(l.XFar);
+                if (sign * (y - reached) <= 0)
+                {
+                    double xk = l.Median.ToCoreValue(y);
+                    held[k] = l.Line.At(xk) - line;
+                }
+                sum += l.Line.Weight * held[k];
+                weight += l.Line.Weight;
+            }
+            xs[q] = x;
+            ys[q] = line + sum / weight;
+            spread[q] = Spread(held, sum / weight, lines.Count + 1);
+            if (q > 0) ys[q] = below ? Math.Max(ys[q], ys[q - 1]) : Math.Min(ys[q], ys[q - 1]);
+        }
+        var consensus = new DepthMapping(m0.CoreId, unit, below ? xs : [.. xs.Reverse()], below ? ys : [.. ys.Reverse()]);
+        double SpreadAt(double x)
+        {
+            double r = Math.Abs(x - c.XEnd) / step;
+            int i = (int)Math.Floor(r);
+            return i >= count ? spread[count] : spread[i] + (r - i) * (spread[i + 1] - spread[i]);
+        }
+        bool Past(double x) => sign * (x - c.XEnd) > 0;
+        double top0 = carrierCore.DepthAt(0), bottom0 = carrierCore.DepthAt(carrierCore.Count - 1);
+        DepthMapping Recentred(DepthMapping m, double draw)
+        {
+            var kx = m.CoreKnots.Concat(m0.CoreKnots).Concat(xs).Where(x => x >= top0 && x <= bottom0).Distinct().Order().ToArray();
+            var ky = new double[kx.Length];
+            for (int k = 0; k < kx.Length; k++)
+                ky[k] = Past(kx[k]) ? m.ToCompositeValue(kx[k]) - m0.ToCompositeValue(kx[k]) + consensus.ToCompositeValue(kx[k]) + draw * SpreadAt(kx[k]) : m.ToCompositeValue(kx[k]);
+            for (int k = 1; k < ky.Length; k++) ky[k] = Math.Max(ky[k], ky[k - 1]);
+            return new DepthMapping(m.CoreId, m.Unit, kx, ky);
+        }
+        if (carrier.Members.Count == 0) return new MappingEnsemble(Recentred(m0, 0), []);
+        var members = carrier.Members.Select((m, e) => Recentred(m, Normal(new Random(Seeds.Derive(seed, carrierCore.CoreId + (below ? "/scale-below" : "/scale-above"), e))))).ToArray();
+        return new MappingEnsemble(DtwCoreAligner.PointwiseMedian(carrierCore, unit, members, double.NegativeInfinity, double.PositiveInfinity), members);
+    }
+
+    /// <summary>The scale past <paramref name="end"/> (the reference's base when <paramref name="below"/>, else its top) as <paramref name="carrier"/>'s members place it; null without members.</summary>
+    public static ScaleContinuation? Of(MappingEnsemble carrier, double end, bool below) =>
+        carrier.Members.Count == 0 ? null : new ScaleContinuation(carrier, end, below);
+
+    private bool Past(double y) => _below ? y > _end : y < _end;
+
+    /// <summary>Member <paramref name="e"/>'s composite depth for composite depth <paramref name="y"/> of the carrier's median.</summary>
+    private double Perturbed(double y, int e)
+    {
+        if (!Past(y)) return y;
+        var m = _members[e % _members.Count];
+        // Past the carrier's own end its departure there is held: a member's last segment is no
+        // rate to extrapolate the scale's error at.
+        double far = _below ? _carrier.CompositeKnots[^1] : _carrier.CompositeKnots[0];
+        double at = _below ? Math.Min(y, far) : Math.Max(y, far);
+        double x = _carrier.ToCoreValue(at);
+        return y + m.ToCompositeValue(x) - at - (m.ToCompositeValue(_carrierAtEnd) - _end);
+    }
+
+    /// <summary><paramref name="member"/> (member <paramref name="e"/> of another core) with its part past the end moved as the carrier's member <paramref name="e"/> moves the scale.</summary>
+    public DepthMapping Apply(DepthMapping member, int e)
+    {
+        var x = member.CoreKnots;
+        var y = member.CompositeKnots;
+        if (!Past(y[0]) && !Past(y[^1])) return member;
+        var cx = new List<double>(x.Count + 1);
+        var cy = new List<double>(x.Count + 1);
+        for (int k = 0; k < x.Count; k++)
+        {
+            // A knot where the member crosses the end keeps the part inside the reference as it was.
+            if (k > 0 && Past(y[k]) != Past(y[k - 1]) && y[k] != y[k - 1])
+            {
+                double at = x[k - 1] + (x[k] - x[k - 1]) * (_end - y[k - 1]) / (y[k] - y[k - 1]);
+                if (at > x[k - 1] && at < x[k]) { cx.Add(at); cy.Add(_end); }
+            }
+            cx.Add(x[k]);
+            cy.Add(Perturbed(y[k], e));
+        }
+        for (int k = 1; k < cy.Count; k++) cy[k] = Math.Max(cy[k], cy[k - 1]);
+        return new DepthMapping(member.CoreId, member.Unit, [.. cx], [.. cy]);
+    }
+
+    /// <summary>
+    /// How far the reference's own column may lie from the consensus: the cores' lines scatter about
+    /// it by their sample standard deviation (<paramref name="offsets"/> of the others from the
+    /// carrier's line, the carrier's own 0, about their mean <paramref name="mean"/>), and the
+    /// reference's column is one more record of the same kind, off the mean of <paramref name="cores"/>
+    /// by that standard deviation times sqrt(1 + 1 / cores) (a prediction interval for a new
+    /// observation, from memory).
+    /// </summary>
+    private static double Spread(double[] offsets, double mean, int cores)
+    {
+        if (cores < 2) return 0;
+        double sum = mean * mean;
+        foreach (double d in offsets) sum += (d - mean) * (d - mean);
+        return Math.Sqrt(sum / (cores - 1) * (1 + 1.0 / cores));
+    }
+
+    private static double Normal(Random rng)
+    {
+        double u1 = 1 - rng.NextDouble(), u2 = rng.NextDouble();
+        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
+    }
+
+    /// <summary>
+    /// A core's long-run continuation past the reference's end: the least-squares line of its median
+    /// over the samples it maps inside the reference (an end point alone would carry the few cm a
+    /// path errs by where it leaves the reference into a ratio error times hundreds of cm), joined to
+    /// the median at the end (<see cref="XEnd"/>, <see cref="YEnd"/>) by an offset decaying over a
+    /// tenth of the shared length, so the continuation starts where the match ends.
+    /// </summary>
+    private sealed record Line(double XEnd, double YEnd, double Intercept, double Ratio, double Decay, double Weight)
+    {
+        public double At(double x) => Intercept + Ratio * x + (YEnd - Intercept - Ratio * XEnd) * Math.Exp(-Math.Abs(x - XEnd) / Decay);
+
+        /// <summary>The line of a core whose median reaches past the end and maps at least 10 samples inside the reference; null otherwise.</summary>
+        public static Line? Of(PreparedSignals core, DepthMapping median, double refTop, double refBottom, bool below)
+        {
+            double top = core.DepthAt(0), bottom = core.DepthAt(core.Count - 1);
+            double end = below ? refBottom : refTop;
+            if (!(below ? median.ToCompositeValue(bottom) > end : median.ToCompositeValue(top) < end)) return null;
+            double sx = 0, sy = 0, sxx = 0, sxy = 0;
+            int n = 0;
+            double x0 = double.PositiveInfinity, x1 = double.NegativeInfinity;
+            for (int i = 0; i < core.Count; i++)
+            {
+                double x = core.DepthAt(i), y = median.ToCompositeValue(x);
+                if (y < refTop || y > refBottom) continue;
+                (sx, sy, sxx, sxy, n) = (sx + x, sy + y, sxx + x * x, sxy + x * y, n + 1);
+                (x0, x1) = (Math.Min(x0, x), Math.Max(x1, x));
+            }
+            if (n < 10) return null;
+            double ratio = (n * sxy - sx * sy) / (n * sxx - sx * sx);
+            if (!(ratio > 0)) return null;
+            double xEnd = Math.Clamp(median.ToCoreValue(end), top, bottom);
+            double shared = Math.Abs(median.ToCompositeValue(x1) - median.ToCompositeValue(x0));
+            return new Line(xEnd, median.ToCompositeValue(xEnd), (sy - ratio * sx) / n, ratio, Math.Max(core.Step, 0.1 * (x1 - x0)), shared);
+        }
+    }
+}

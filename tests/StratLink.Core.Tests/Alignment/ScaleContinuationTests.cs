@@ -1,0 +1,76 @@
+using StratLink.Alignment;
+using StratLink.Quantities;
+
+namespace StratLink.Tests.Alignment;
+
+/// <summary>
+/// The composite scale past the reference's base on a worked example (values by hand from the
+/// method's definition): the reference holds 0-100 cm; the carrier C (0-300 cm) maps at ratio 1;
+/// the other core K (0-250 cm) maps at ratio 0.5 inside the reference and, matched to C, at 0.6
+/// past it, so its long-run line (0.5 x) puts each level it shares with C higher than C's does.
+/// </summary>
+public class ScaleContinuationTests
+{
+    private const DepthUnit Cm = DepthUnit.Centimetre;
+
+    private static PreparedSignals Core(string id, int count) => new(id, 0, 1, count, ["ms"], new double[count]);
+
+    private static DepthMapping Map(string id, params (double X, double Y)[] knots) =>
+        new(id, Cm, [.. knots.Select(k => k.X)], [.. knots.Select(k => k.Y)]);
+
+    private static (PreparedSignals C, PreparedSignals K, DepthMapping Carrier, DepthMapping Other) Site() =>
+        (Core("C", 301), Core("K", 251), Map("C", (0, 0), (300, 300)), Map("K", (0, 0), (200, 100), (250, 130)));
+
+    [Fact]
+    public void The_carrier_past_the_base_follows_the_cores_mean_long_run_line_at_the_levels_they_share()
+    {
+        var (c, k, carrier, other) = Site();
+        var result = ScaleContinuation.Consensus(new MappingEnsemble(carrier, []), c, [(c, carrier), (k, other)], 0, 100, below: true, Cm).Median;
+        // Tolerance: arithmetic only. Inside the reference nothing moves.
+        Assert.Equal(50, result.ToCompositeValue(50), 1e-9);
+        Assert.Equal(100, result.ToCompositeValue(100), 1e-9);
+        // At C's 120 cm (composite 120) K's median puts 200 + 20 / 0.6 cm of K, whose line gives
+        // 116.67: the mean of the offsets (0 for C, -3.33 for K, equal shared lengths) is -1.67.
+        Assert.Equal(120 - 10.0 / 6, result.ToCompositeValue(120), 1e-9);
+        // Past K's base (composite 130, K's line 125 there) K's offset -5 is held.
+        Assert.Equal(200 - 2.5, result.ToCompositeValue(200), 1e-9);
+    }
+
+    [Fact]
+    public void The_scale_past_the_base_is_uncertain_by_how_far_the_cores_lines_scatter()
+    {
+        var (c, k, carrier, other) = Site();
+        var members = Enumerable.Repeat(carrier, 2000).ToArray();
+        var result = ScaleContinuation.Consensus(new MappingEnsemble(carrier, members), c, [(c, carrier), (k, other)], 0, 100, below: true, Cm, seed: 11);
+        // At 120 cm the offsets are 0 (C) and -3.33 (K) about their mean -1.67: sample sd 2.357, times
+        // sqrt(1 + 1/2) for a new record, 2.887. Tolerance 5 %: three standard errors of a standard
+        // deviation from 2000 normal draws (relative 1 / sqrt(2 x 2000) = 1.6 %), fixed seed.
+        var at120 = result.Members.Select(m => m.ToCompositeValue(120)).ToArray();
+        double mean = at120.Average(), sd = Math.Sqrt(at120.Sum(v => (v - mean) * (v - mean)) / (at120.Length - 1));
+        Assert.Equal(Math.Sqrt(50.0 / 6), sd, 0.05 * Math.Sqrt(50.0 / 6));
+        Assert.Equal(120 - 10.0 / 6, mean, 0.2); // 3 standard errors of the mean (2.887 / sqrt 2000 = 0.065)
+        // Inside the reference no member moves.
+        Assert.All(result.Members, m => Assert.Equal(50, m.ToCompositeValue(50), 1e-9));
+    }
+
+    [Fact]
+    public void Member_e_of_every_core_is_moved_as_member_e_of_the_carrier_moves_the_scale()
+    {
+        var carrier = new MappingEnsemble(Map("C", (0, 0), (300, 300)),
+            [Map("C", (0, 0), (100, 100), (300, 320)), Map("C", (0, 0), (100, 100), (300, 280))]);
+        var scale = ScaleContinuation.Of(carrier, 100, below: true)!;
+        var a = Map("A", (0, 20), (200, 220));
+        var b = Map("B", (0, 60), (100, 160), (200, 260));
+        // Tolerance: arithmetic only. Member 0 stretches the scale past 100 by 10 %, member 1 shrinks it by 10 %.
+        foreach (var (e, factor) in new[] { (0, 1.1), (1, 0.9) })
+        {
+            var movedA = scale.Apply(a, e);
+            var movedB = scale.Apply(b, e);
+            Assert.Equal(70, movedA.ToCompositeValue(50), 1e-9);
+            Assert.Equal(100, movedA.ToCompositeValue(80), 1e-9);
+            Assert.Equal(100 + factor * 100, movedA.ToCompositeValue(180), 1e-9);
+            Assert.Equal(100 + factor * 100, movedB.ToCompositeValue(140), 1e-9); // the same level in both cores
+            Assert.Equal(100 + factor * 160, movedB.ToCompositeValue(200), 1e-9);
+        }
+    }
+}
