@@ -1,3 +1,4 @@
+using System.Numerics;
 using StratLink.Alignment;
 
 namespace StratLink.Tests.Alignment;
@@ -72,6 +73,51 @@ public class PathSamplerTests
         {
             double sd = Math.Sqrt(draws * p * (1 - p));
             Assert.True(Math.Abs(counts.GetValueOrDefault(key) - draws * p) <= 5 * sd + 1, $"path {key}: drawn {counts.GetValueOrDefault(key)}, expected {draws * p:0.0}");
+        }
+    }
+
+    /// <summary>Delannoy number D(a, b), the count of symmetric2 paths from (0, 0) to (a, b): sum_k C(a, k) C(b, k) 2^k (Banderier and Schwer 2005, "Why Delannoy numbers?").</summary>
+    private static BigInteger Delannoy(int a, int b)
+    {
+        BigInteger sum = 0, ca = 1, cb = 1, two = 1;
+        for (int k = 0; k <= Math.Min(a, b); k++)
+        {
+            sum += ca * cb * two;
+            ca = ca * (a - k) / (k + 1);
+            cb = cb * (b - k) / (k + 1);
+            two *= 2;
+        }
+        return sum;
+    }
+
+    /// <summary>
+    /// Where every cell costs alike, each path weighs the same under symmetric2 (its weight is i + j
+    /// whatever its steps), so the posterior is uniform over lattice paths and the share passing a
+    /// cell is a ratio of path counts. Between two ties 77 grid steps apart this is the pull towards
+    /// the straight line that every sampled ensemble carries: a crossing 10 cells off the diagonal
+    /// at the middle has e^-1.84 the paths of one on it.
+    /// </summary>
+    [Fact]
+    public void Equal_costs_give_every_lattice_path_the_same_weight()
+    {
+        const int size = 78, row = 38;
+        var flat = new double[size];
+        var sampler = new PathSampler<AbsoluteCost>(new AbsoluteCost(flat, flat), StepPattern.Symmetric2, Band.Full(size, size), new DtwOptions(), 0.5, null, 0, default);
+        var rng = new Random(5);
+        const int draws = 20000;
+        var through = new int[size];
+        for (int d = 0; d < draws; d++)
+        {
+            var (pi, pj) = sampler.Sample(rng);
+            for (int k = 0; k < pi.Length; k++) if (pi[k] == row) through[pj[k]]++;
+        }
+        var total = Delannoy(size - 1, size - 1);
+        double Share(int j) => Math.Exp(BigInteger.Log(Delannoy(row, j) * Delannoy(size - 1 - row, size - 1 - j)) - BigInteger.Log(total));
+        Assert.Equal(-1.84, Math.Log(Share(row + 10) / Share(row)), 2);
+        foreach (int j in new[] { row - 10, row, row + 5, row + 10 })
+        {
+            double p = Share(j), sd = Math.Sqrt(draws * p * (1 - p));
+            Assert.True(Math.Abs(through[j] - draws * p) <= 5 * sd, $"cell ({row}, {j}): passed {through[j]} times, expected {draws * p:0.0}");
         }
     }
 }
