@@ -17,7 +17,8 @@ namespace StratLink.Alignment;
 /// it from matching itself. The reference keeps the identity, so composite depth is still its depth
 /// where it has data; a core that runs past the reference is matched there to the cores that reach
 /// that far, and only what no other core reaches is continued at its rate ratio. Past each end of the
-/// reference one core carries the scale (progressive alignment: the one reaching furthest, aligned
+/// reference one core carries the scale (progressive alignment: the one reaching furthest of those
+/// sharing a long record with the reference, aligned
 /// only to the stack on the reference's side and continued at the cores' consensus long-run rate
 /// ratio, <see cref="ScaleContinuation"/>), the others are matched to it, and the scale's
 /// uncertainty there enters member e of every core as member e of the carrier's. All cores map to one
@@ -91,29 +92,47 @@ internal static class SiteAligner
 
     /// <summary>
     /// Per end of the reference that at least two cores' starting mappings place past it, the one
-    /// placed furthest: the scale there is that core's continuation (progressive alignment: the
-    /// others are matched to it, it to the part the reference holds), so the rounds cannot drift there
-    /// by cores matched to each other. A core alone past an end is continued by its own alignment,
-    /// as at the reference scale.
+    /// placed furthest among those sharing at least <see cref="CarrierShare"/> of the longest record
+    /// any of them shares with the reference: the scale there is that core's continuation
+    /// (progressive alignment: the others are matched to it, it to the part the reference holds), so
+    /// the rounds cannot drift there by cores matched to each other. A core alone past an end is
+    /// continued by its own alignment, as at the reference scale.
     /// </summary>
     private static Carriers CarriersOf(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings)
     {
         double margin = Math.Max(2, 0.01 * reference.Count) * reference.Step;
         double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
-        string? top = null, bottom = null;
-        double highest = refTop - margin, lowest = refBottom + margin;
-        int above = 0, below = 0;
-        foreach (var c in members)
+        var placed = members.Select(c =>
         {
             var map = mappings[c.CoreId].Median;
             double t = map.ToCompositeValue(c.Signals.DepthAt(0)), b = map.ToCompositeValue(c.Signals.DepthAt(c.Signals.Count - 1));
-            if (t < refTop - margin) above++;
-            if (b > refBottom + margin) below++;
-            if (t < highest) (highest, top) = (t, c.CoreId);
-            if (b > lowest) (lowest, bottom) = (b, c.CoreId);
-        }
-        return new Carriers(above >= 2 ? top : null, below >= 2 ? bottom : null);
+            return (c.CoreId, Top: t, Bottom: b, Shared: Math.Max(0, Math.Min(b, refBottom) - Math.Max(t, refTop)));
+        }).ToList();
+        var above = placed.Where(p => p.Top < refTop - margin).Select(p => new CarrierCandidate(p.CoreId, refTop - p.Top, p.Shared)).ToList();
+        var below = placed.Where(p => p.Bottom > refBottom + margin).Select(p => new CarrierCandidate(p.CoreId, p.Bottom - refBottom, p.Shared)).ToList();
+        return new Carriers(CarrierAmong(above), CarrierAmong(below));
     }
+
+    /// <summary>A core placed past one end of the reference: how far past it (<paramref name="Reach"/>) and how much record it shares with the reference (<paramref name="Shared"/>), both in composite depth.</summary>
+    internal readonly record struct CarrierCandidate(string CoreId, double Reach, double Shared);
+
+    /// <summary>The carrier among the cores placed past one end (<see cref="CarriersOf"/>); null with fewer than two.</summary>
+    internal static string? CarrierAmong(IReadOnlyList<CarrierCandidate> past)
+    {
+        if (past.Count < 2) return null;
+        double longest = past.Max(p => p.Shared);
+        return past.Where(p => p.Shared >= CarrierShare * longest).MaxBy(p => p.Reach).CoreId;
+    }
+
+    /// <summary>
+    /// A carrier continues the scale at the long-run rate ratio it keeps over the record it shares
+    /// with the reference, whose error grows with distance over the square root of that length: a
+    /// core sharing a short stretch (a freeze core tied once beside a piston core spanning the
+    /// reference) extrapolates a poorer ratio however far its start is placed, and placed by that
+    /// same extrapolation, often furthest. Half the longest share keeps the ratio's error within
+    /// about 1.4 times the best (our choice).
+    /// </summary>
+    private const double CarrierShare = 0.5;
 
     /// <summary>Each carrier's mapping past the end it carries recentred on the cores' consensus there (<see cref="ScaleContinuation.Consensus"/>).</summary>
     private static void ContinueCarriers(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DepthUnit unit, int seed = 0)
