@@ -50,7 +50,7 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
     [InlineData(1)]
     [InlineData(2, Skip = "Open problem: the freeze core's band holds the truth at 88% of its samples")]
     [InlineData(3, Skip = "Open problem: MW19-P2 is matched to the wrong stretch at the reference's base (overlap RMS 1.56 cm against 2.98 cm for ties, 0.52x)")]
-    [InlineData(4, Skip = "Open problem: above the reference's top the freeze core is placed 7.8 cm RMS off against 3.6 cm for ties")]
+    [InlineData(4)]
     [InlineData(5, Skip = "Open problem: just above the reference's top MW19-P2 puts 19 cm of composite on 10 cm of core, a rate change no core's long-run ratio shows; the freeze core's band holds the truth at 60% there and MW19-P1 is 10.0 cm RMS off below the base against 2.5 cm for ties")]
     [InlineData(6)]
     [InlineData(7)]
@@ -59,7 +59,7 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
 
     [Theory]
     [InlineData(true)]
-    [InlineData(false, Skip = "Open problem: above the short reference's top the freeze core's continued median errs by 5.79 cm RMS over seeds 1-8 against 5.56 cm for ties (the piston cores past the reference: 4.78 and 4.52 cm against 7.52 and 8.24)")]
+    [InlineData(false)]
     public void Past_the_reference_the_median_is_no_worse_than_straight_lines_over_seeds_1_to_8(bool deep)
     {
         var pooled = new Dictionary<string, Figures>(StringComparer.Ordinal);
