@@ -176,8 +176,9 @@ public static class DtwCoreAligner
     /// <summary>
     /// The band cut, where nothing is matched, to the optimal path's cells widened by
     /// <paramref name="cells"/> (one autocorrelation time, the scale of independent evidence) either
-    /// side: in an open first (last) row, and in the padding beyond the reference's recorded columns
-    /// <paramref name="recorded0"/>-<paramref name="recorded1"/> (band columns). Sampled at a
+    /// side: in an open first (last) row, in the padding beyond the reference's recorded columns
+    /// <paramref name="recorded0"/>-<paramref name="recorded1"/> (band columns), and below the record
+    /// in the rows where the optimal path runs in the padding. Sampled at a
     /// temperature, a path drifts into a stretch where every path costs alike: the unmatched
     /// reference before an open end has one way of being skipped but many of being matched, and the
     /// padding many ways of being crossed, so paths that spend cells there outnumber those that do
@@ -203,6 +204,10 @@ public static class DtwCoreAligner
             if (first[i] > last[i]) continue;
             if (lo[i] < recorded0) lo[i] = Math.Max(lo[i], Math.Min(recorded0, first[i] - cells));
             if (hi[i] > recorded1) hi[i] = Math.Min(hi[i], Math.Max(recorded1, last[i] + cells));
+            // Cut on the padding's side alone, the lattice below the record would be a strip about
+            // the optimal path against the whole band inside the record: members would outnumber it
+            // by lagging there, squeezing the core's rows onto the reference's last columns.
+            if (first[i] > recorded1) lo[i] = Math.Max(lo[i], first[i] - cells);
         }
         if (openBegin && first[0] <= last[0]) (lo[0], hi[0]) = (Math.Max(lo[0], Math.Min(first[0], path.J[0] - cells)), Math.Min(hi[0], Math.Max(last[0], path.J[0] + cells)));
         if (openEnd && first[^1] <= last[^1]) (lo[^1], hi[^1]) = (Math.Max(lo[^1], Math.Min(first[^1], path.J[^1] - cells)), Math.Min(hi[^1], Math.Max(last[^1], path.J[^1] + cells)));

@@ -79,7 +79,7 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
         return site;
     }
 
-    private void AssertPerCore(SiteFigures site)
+    internal static void AssertPerCore(SiteFigures site)
     {
         var failures = new List<string>();
         foreach (var (id, c) in site.Cores)
@@ -93,12 +93,14 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
         Assert.True(failures.Count == 0, string.Join("; ", failures));
     }
 
-    private static SiteFigures Measure(int seed, DemoSiteShape shape)
+    /// <summary>Figures per core of one generated site, at <paramref name="step"/> cm of alignment grid where given (else the project's).</summary>
+    internal static SiteFigures Measure(int seed, DemoSiteShape shape, double? step = null)
     {
         var site = DemoSiteGenerator.Generate(seed, shape);
-        var loaded = Load(site);
+        var project = step is { } s ? site.Project with { Alignment = site.Project.Alignment with { Step = s } } : site.Project;
+        var loaded = Load(site).WithProject(project);
         var dtw = CoreAligner.Align(loaded, null, default);
-        var ties = CoreAligner.Align(loaded.WithProject(site.Project with { Alignment = site.Project.Alignment with { Method = AlignmentMethods.Ties } }), null, default);
+        var ties = CoreAligner.Align(loaded.WithProject(project with { Alignment = project.Alignment with { Method = AlignmentMethods.Ties } }), null, default);
         double referenceBottom = site.Truth[site.ReferenceCoreId].Length;
         var cores = new List<(string, CoreFigures)>();
         var lines = new List<string>();
@@ -122,11 +124,11 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
         return new SiteFigures(cores, lines);
     }
 
-    private sealed record CoreFigures(Figures Inside, Figures Past);
+    internal sealed record CoreFigures(Figures Inside, Figures Past);
 
-    private sealed record SiteFigures(IReadOnlyList<(string Id, CoreFigures Core)> Cores, IReadOnlyList<string> Lines);
+    internal sealed record SiteFigures(IReadOnlyList<(string Id, CoreFigures Core)> Cores, IReadOnlyList<string> Lines);
 
-    private sealed class Figures
+    internal sealed class Figures
     {
         private double _sqDtw, _sqTies;
         private int _inside;
