@@ -34,10 +34,13 @@ internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRati
     /// margin (1 % of the stack, at least 2 cells): a core running a hundred cm past another's base, well inside the
     /// half-width of a long record, is otherwise squeezed onto the stack's end. A core mostly outside
     /// the stack (the one carrying the composite scale past the reference, matched to the part the
-    /// reference holds) is padded too: squeezed, it would carry the scale nowhere.
+    /// reference holds) is padded too: squeezed, it would carry the scale nowhere. The placement decides an
+    /// end only where <paramref name="placedEnds"/> says other cores reach past the reference there
+    /// or the core carries the scale there.
     /// </para>
     /// </summary>
-    public static CoreOverhang Of(PreparedSignals core, PreparedSignals reference, IReadOnlyList<TiePoint> ties, double window, DepthUnit unit, DepthMapping? placement = null)
+    public static CoreOverhang Of(PreparedSignals core, PreparedSignals reference, IReadOnlyList<TiePoint> ties, double window, DepthUnit unit,
+        DepthMapping? placement = null, (bool Top, bool Bottom)? placedEnds = null)
     {
         int n = core.Count, m = reference.Count;
         int w = Math.Max(1, (int)Math.Ceiling(window * Math.Max(n, m)));
@@ -49,8 +52,12 @@ internal readonly record struct CoreOverhang(int Top, int Bottom, double TieRati
         // stack in one round would otherwise keep itself there in the next.
         var (lineAbove, lineBelow) = ties.Count == 0 ? (above, below)
             : Outside(core, reference, TieNetwork.StraightLines("grid", unit, [.. ties.OrderBy(t => t.CoreDepth)], core.DepthAt(0), core.DepthAt(n - 1)));
-        int top = byLine.Top > 0 ? byLine.Top : Math.Min(above, lineAbove) > margin ? (int)Math.Ceiling(Math.Max(above, lineAbove)) + w : 0;
-        int bottom = byLine.Bottom > 0 ? byLine.Bottom : Math.Min(below, lineBelow) > margin ? (int)Math.Ceiling(Math.Max(below, lineBelow)) + w : 0;
+        // Only where other cores already reach past the reference (or the core carries the scale
+        // there) is the placement evidence of its own: elsewhere it was extrapolated like the line
+        // (a porous top through the reference's disturbed top) and the line's rule stands.
+        bool topByPlacement = placedEnds?.Top ?? true, bottomByPlacement = placedEnds?.Bottom ?? true;
+        int top = byLine.Top > 0 ? byLine.Top : topByPlacement && Math.Min(above, lineAbove) > margin ? (int)Math.Ceiling(Math.Max(above, lineAbove)) + w : 0;
+        int bottom = byLine.Bottom > 0 ? byLine.Bottom : bottomByPlacement && Math.Min(below, lineBelow) > margin ? (int)Math.Ceiling(Math.Max(below, lineBelow)) + w : 0;
         if (top == byLine.Top && bottom == byLine.Bottom) return byLine;
         double ratio = byLine.Any ? byLine.TieRatio : (placement.ToCompositeValue(core.DepthAt(n - 1)) - placement.ToCompositeValue(core.DepthAt(0))) / Math.Max(1e-12, core.DepthAt(n - 1) - core.DepthAt(0));
         // The ties' line misses an end by up to a band half-width, so only a placement's end is expected to be where it says.

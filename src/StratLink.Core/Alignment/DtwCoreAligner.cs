@@ -28,19 +28,20 @@ namespace StratLink.Alignment;
 /// </para>
 /// <para>
 /// Aligned to a stack of other cores (site rounds), a <c>placement</c> (the core's mapping from the
-/// previous round) also decides where the stack is padded (<see cref="CoreOverhang.Of"/>).
+/// previous round) also decides where the stack is padded (<see cref="CoreOverhang.Of"/>) at the ends
+/// named by <c>placedEnds</c>.
 /// </para>
 /// </summary>
 public static class DtwCoreAligner
 {
     public static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics) Align(
         PreparedSignals core, PreparedSignals reference, double[] weights, IReadOnlyList<TiePoint> ties,
-        DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct = default, DepthMapping? placement = null)
+        DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct = default, DepthMapping? placement = null, (bool Top, bool Bottom)? placedEnds = null)
     {
         if (core.Signals.Length != weights.Length || reference.Signals.Length != weights.Length)
             throw new ArgumentException("Core, reference and weights must have the same signals.");
         if (Math.Abs(core.Step - reference.Step) > 1e-9 * core.Step) throw new ArgumentException("Core and reference must share one grid step.");
-        var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit, placement);
+        var overhang = CoreOverhang.Of(core, reference, ties, options.Window, unit, placement, placedEnds);
         var unpadded = reference;
         int recorded0 = overhang.Top, recorded1 = overhang.Top + reference.Count - 1;
         if (overhang.Any) reference = overhang.Pad(reference);

@@ -190,7 +190,12 @@ internal static class SiteAligner
             var local = new FindingList();
             using (StageTimes.Measure("align"))
             {
-                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct, current[c.CoreId]);
+                // The placement decides padding at an end only where the stack already reaches past the
+                // reference there (other cores matched beyond it) or the core carries the scale there.
+                double margin = Math.Max(2, 0.01 * stack.Count) * stack.Step;
+                var placedEnds = (c.CoreId == carriers.Top || stack.Top < reference.DepthAt(0) - margin,
+                    c.CoreId == carriers.Bottom || stack.DepthAt(stack.Count - 1) > reference.DepthAt(reference.Count - 1) + margin);
+                var (m, d) = DtwCoreAligner.Align(c.Signals, stack, c.Weights, c.Ties, options, unit, local, ct, current[c.CoreId], placedEnds);
                 next[k] = (m, d, local);
             }
         });
