@@ -26,7 +26,9 @@ namespace StratLink.Checks;
 /// along it), where there is nothing to compare. Consistent alignments close the loop; the worst
 /// mismatch and where it is are reported, as a warning when it exceeds
 /// <see cref="CheckSettings.TieMisfitSigmas"/> times the typical tie uncertainty (median over markers,
-/// at least one grid step of C), else as a note. On the site scale the composite's own band at the
+/// at least one grid step of C), else as a note; the multiple is raised for the worst of the
+/// effective number of independent points compared (<see cref="FamilyWiseLimit"/>), so that a long
+/// consistent site warns no more often than one comparison would. On the site scale the composite's own band at the
 /// point (from the ensemble, when there is one) is added in quadrature, and the pair's: at least the
 /// site's, and where the optimal paths would warn, the pair's own band from its sampled paths (seeded
 /// as the build's; then the nearer of its optimal path and their median is compared). A mapping known
@@ -79,6 +81,7 @@ internal static class LoopClosureCheck
         progress?.Report(new WorkProgress("checks: loop closure", 1));
 
         (double Mismatch, string A, string B, string C, double Z, double Direct, double Via)? worst = null;
+        double compared = 0;
         foreach (string a in cores)
         {
             var ta = loaded.Tables[a];
@@ -93,6 +96,7 @@ internal static class LoopClosureCheck
                     if (!maps[b].TryGetValue(a, out var ab) || !maps[c].TryGetValue(a, out var ac) || !maps[c].TryGetValue(b, out var bc)) continue;
                     if (Overlap(maps[a], b, loaded) is not { } inAofB || Overlap(maps[a], c, loaded) is not { } inAofC) continue;
                     double lo = Math.Max(inAofB.Lo, inAofC.Lo) + stepA, hi = Math.Min(inAofB.Hi, inAofC.Hi) - stepA;
+                    var misfits = new List<double>();
                     for (int k = 0; k < ta.Count; k += stride)
                     {
                         double z = ta.Depths[k];
@@ -103,15 +107,17 @@ internal static class LoopClosureCheck
                         double direct = ac.Median.ToCompositeValue(z);
                         double via = bc.Median.ToCompositeValue(inB);
                         double mismatch = Math.Abs(direct - via);
+                        misfits.Add(direct - via);
                         if (worst is null || mismatch > worst.Value.Mismatch) worst = (mismatch, a, b, c, z, direct, via);
                     }
+                    compared += FamilyWiseLimit.EffectiveCount(misfits);
                 }
             }
         }
         if (worst is not { } w) return;
         Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
             $"Mapping core {w.A} to {w.C} directly and through {w.B} differs by {r.Depth(w.Mismatch)} at most, at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Direct)} in {w.C} directly, {r.Depth(w.Via)} through {w.B}); ",
-            $"{w.A}/{w.B}/{w.C}");
+            $"{w.A}/{w.B}/{w.C}", 0, (FamilyWiseLimit.Sigmas(p.Checks.TieMisfitSigmas, compared), compared));
     }
 
     /// <summary>Site scale: each pair's mapping through the one composite against a direct alignment of the pair.</summary>
@@ -151,29 +157,35 @@ internal static class LoopClosureCheck
         // Optimal paths first; a reference whose pairs would warn is aligned again with the path
         // ensemble, so that a warning is judged against the pair's own band, not a bound on it.
         var worstByReference = references.ToDictionary(c => c, c => WorstPair(c, null), StringComparer.Ordinal);
+        // The worst of every compared point is judged, so the limit is the one for the family of the
+        // points' effective number, taken from the optimal paths' misfits.
+        double compared = worstByReference.Values.Sum(w => w.Effective);
+        double sigmas = FamilyWiseLimit.Sigmas(p.Checks.TieMisfitSigmas, compared);
         foreach (string c in references)
         {
-            if (worstByReference[c] is not { } first || first.Excess <= p.Checks.TieMisfitSigmas) continue;
+            if (worstByReference[c].Worst is not { } first || first.Excess <= sigmas) continue;
             ct.ThrowIfCancellationRequested();
             var pair = p with { Alignment = p.Alignment with { Reference = c, Scale = AlignmentScales.Reference } };
             if (AlignmentRuns.TryAlign(aligner, loaded, pair, ct, out _, PairEnsemble) is not { } sampled) continue;
             worstByReference[c] = WorstPair(c, sampled);
         }
-        var worst = worstByReference.Values.Where(w => w is not null).MaxBy(w => w!.Value.Excess);
+        var worst = worstByReference.Values.Select(w => w.Worst).Where(w => w is not null).MaxBy(w => w!.Value.Excess);
         if (worst is not { } w) return;
         string own = w.Sampled ? $" (the optimal path or the median of {PairEnsemble} sampled paths, whichever is nearer)" : "";
         Report(r, loaded, w.Mismatch, w.A, w.C, w.Z,
             $"Mapping core {w.A} to {w.C} through the site's composite and by aligning {w.A} to {w.C} alone{own} differs by {r.Depth(w.Mismatch)} at {r.Depth(w.Z)} in {w.A} ({r.Depth(w.Implied)} in {w.C} through the composite, {r.Depth(w.Direct)} directly), the largest departure for its uncertainty; ",
-            $"{w.A}/{w.C}", w.Band);
+            $"{w.A}/{w.C}", w.Band, (sigmas, compared));
 
         // The worst departure, for its uncertainty, over the cores shorter than c; with the pair's
         // sampled paths, from the nearer of its optimal path (the posterior's mode) and their median:
         // where the two differ the pair's posterior is skewed or has several modes, and a site placement
         // near either is one the pair's own evidence allows.
-        (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? WorstPair(string c, AlignmentResult? sampled)
+        // Effective: the effective number of independent points compared, summed over the pairs.
+        ((double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? Worst, double Effective) WorstPair(string c, AlignmentResult? sampled)
         {
             (double Mismatch, double Band, double Excess, string A, string C, double Z, double Direct, double Implied, bool Sampled)? worst = null;
-            if (!site.TryGetValue(c, out var sc)) return null;
+            double effective = 0;
+            if (!site.TryGetValue(c, out var sc)) return (null, 0);
             var tc = loaded.Tables[c];
             var specC = p.FindCore(c)!;
             double stepC = AlignmentRuns.GridStep(p, tc);
@@ -190,6 +202,7 @@ internal static class LoopClosureCheck
                 var (ownLo, ownHi) = PlacedByThePair(ac, direct[c].Diagnostics.GetValueOrDefault(a), ties[c], a, ta, tc, stepC);
                 double lo = Math.Max(ownLo, sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[0])) + stepA);
                 double hi = Math.Min(ownHi, sa.Median.ToCoreValue(sc.Median.ToCompositeValue(tc.Depths[^1])) - stepA);
+                var misfits = new List<double>();
                 for (int k = 0; k < ta.Count; k += stride)
                 {
                     double z = ta.Depths[k];
@@ -204,6 +217,7 @@ internal static class LoopClosureCheck
                     double back = sa.Median.ToCoreValue(sc.Median.ToCompositeValue(d)); // the direct placement, carried back to A through the site
                     if (Unrecorded(specC, Math.Min(d, implied), Math.Max(d, implied)) || Unrecorded(spec, Math.Min(z, back), Math.Max(z, back))) continue;
                     double mismatch = Math.Abs(d - implied);
+                    misfits.Add(d - implied);
                     // The bands only lower the excess, so they are read (sorting the members) only where
                     // the tie uncertainty alone would make this point the worst.
                     if (worst is not null && mismatch / sigma <= worst.Value.Excess) continue;
@@ -220,8 +234,9 @@ internal static class LoopClosureCheck
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
                     if (worst is null || excess > worst.Value.Excess) worst = (mismatch, band, excess, a, c, z, d, implied, members is not null);
                 }
+                effective += FamilyWiseLimit.EffectiveCount(misfits);
             }
-            return worst;
+            return (worst, effective);
         }
     }
 
@@ -230,21 +245,26 @@ internal static class LoopClosureCheck
     /// tie uncertainty (at least one grid step of C), combined in quadrature with the standard
     /// uncertainty <paramref name="band"/> (C's depth units) of the mapping the mismatch is measured on.
     /// </summary>
-    private static void Report(CheckReporter r, LoadedProject loaded, double mismatch, string a, string c, double z, string what, string item, double band = 0)
+    private static void Report(CheckReporter r, LoadedProject loaded, double mismatch, string a, string c, double z, string what, string item, double band,
+        (double Sigmas, double Compared) family)
     {
         var p = r.Project;
         double tie = Math.Max(TypicalTieSigma(p), AlignmentRuns.GridStep(p, loaded.Tables[c]));
         double sigma = Math.Sqrt(tie * tie + band * band);
-        double limit = p.Checks.TieMisfitSigmas * sigma;
+        double limit = family.Sigmas * sigma;
         bool bad = mismatch > limit;
         string basis = band > 0
             ? $"{r.Depth(tie)} typical tie uncertainty (at least one grid step) and {r.Depth(band)} from the bands of both mappings there, combined"
             : "typical tie uncertainty, at least one grid step";
+        string times = CheckReporter.Number(Math.Round(family.Sigmas, 2));
+        string raised = family.Sigmas > p.Checks.TieMisfitSigmas
+            ? $"; {CheckReporter.Number(p.Checks.TieMisfitSigmas)} for one comparison, raised for the worst of about {family.Compared:0} independent points"
+            : "";
         r.Add(bad ? Severity.Warning : Severity.Note, CheckCodes.LoopClosure,
             what
             + (bad
-                ? $"that is more than {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} ({basis}), so the alignments are not consistent there."
-                : $"within {CheckReporter.Number(p.Checks.TieMisfitSigmas)} × {r.Depth(sigma)} ({basis})."),
+                ? $"that is more than {times} × {r.Depth(sigma)} ({basis}{raised}), so the alignments are not consistent there."
+                : $"within {times} × {r.Depth(sigma)} ({basis}{raised})."),
             a, item, z, $"cores[{a}]");
     }
 

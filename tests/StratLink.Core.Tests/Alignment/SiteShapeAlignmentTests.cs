@@ -21,7 +21,13 @@ namespace StratLink.Tests.Alignment;
 /// reference the median must stay within twice the ties' error (a gross-failure guard).
 /// Past the reference the truth follows the unrecovered column's own rate wiggles, which no core
 /// records, so on one seed the continued median may beat the ties' line or lose to it by chance; over
-/// seeds 1-8 together it must be no worse than the ties (<see cref="Past_the_reference_the_median_is_no_worse_than_straight_lines_over_seeds_1_to_8"/>).
+/// seeds 1-8 together it must be no worse than the ties, nor than the truth itself continued from its
+/// true end at its true overall rate ratio over the overlap (<see cref="Past_the_reference_the_median_is_no_worse_than_straight_lines_nor_the_truth_continued_over_seeds_1_to_8"/>).
+/// How far the unseen wiggle is from any straight continuation shows in the printed figures: the best
+/// straight line fitted to the truth past the reference (free level and slope, each end apart), which
+/// no method can know. Where even that line, with a perfect overlap, would leave the whole core above
+/// half the ties' RMS, halving the whole core's error is out of reach, so the halving is asked of the
+/// overlap, and past the reference the band's honesty and the pooled comparison.
 /// </summary>
 public class SiteShapeAlignmentTests(ITestOutputHelper output)
 {
@@ -60,7 +66,7 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
     [Theory]
     [InlineData(true)]
     [InlineData(false)]
-    public void Past_the_reference_the_median_is_no_worse_than_straight_lines_over_seeds_1_to_8(bool deep)
+    public void Past_the_reference_the_median_is_no_worse_than_straight_lines_nor_the_truth_continued_over_seeds_1_to_8(bool deep)
     {
         var pooled = new Dictionary<string, Figures>(StringComparer.Ordinal);
         for (int seed = 1; seed <= 8; seed++)
@@ -68,7 +74,8 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
                 if (core.Past.N > 0) pooled[id] = pooled.TryGetValue(id, out var f) ? f.With(core.Past) : core.Past;
         Assert.NotEmpty(pooled);
         foreach (var (id, f) in pooled) output.WriteLine($"{(deep ? "deep core" : "short reference")} {id}, seeds 1-8 pooled, past the reference: {f}");
-        var worse = pooled.Where(kv => kv.Value.Dtw > kv.Value.Ties).Select(kv => $"{kv.Key}: dtw RMS {kv.Value.Dtw:0.00} against ties {kv.Value.Ties:0.00}").ToList();
+        var worse = pooled.Where(kv => kv.Value.Dtw > Math.Min(kv.Value.Ties, kv.Value.LongRun))
+            .Select(kv => $"{kv.Key}: dtw RMS {kv.Value.Dtw:0.00} against ties {kv.Value.Ties:0.00} and the truth continued at its overall ratio {kv.Value.LongRun:0.00}").ToList();
         Assert.True(worse.Count == 0, string.Join("; ", worse));
     }
 
@@ -116,8 +123,12 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
                 var (lo, hi) = e.CompositeRange(z);
                 (t > referenceBottom || t < 0 ? past : inside).Add(e.Median.ToCompositeValue(z) - t, ties.Mappings[id].Median.ToCompositeValue(z) - t, t >= lo && t <= hi);
             }
+            past.AddContinuations(truth, referenceBottom);
             var all = inside.With(past);
-            lines.Add($"seed {seed} {id} ({truth.Length:0} cm): overlap {inside}; past the reference {past}; whole core RMS dtw {all.Dtw:0.00}, ties {all.Ties:0.00} cm, band {all.Coverage:P1}");
+            // With a perfect overlap and the best line through the truth past the reference, the whole core's RMS.
+            double reach = Math.Sqrt(past.BestLine * past.BestLine * past.N / Math.Max(1, all.N));
+            lines.Add($"seed {seed} {id} ({truth.Length:0} cm): overlap {inside}; past the reference {past}; whole core RMS dtw {all.Dtw:0.00}, ties {all.Ties:0.00} cm, band {all.Coverage:P1}"
+                + (past.N > 0 ? $"; halving the whole core's ties RMS is {(reach <= 0.5 * all.Ties ? "within" : "out of")} reach of the best line through the truth ({reach:0.00} cm against {0.5 * all.Ties:0.00})" : ""));
             cores.Add((id, new CoreFigures(inside, past)));
         }
         lines.AddRange(dtw.Findings.Select(f => f.ToString()));
@@ -130,13 +141,19 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
 
     internal sealed class Figures
     {
-        private double _sqDtw, _sqTies;
+        private double _sqDtw, _sqTies, _sqBestLine, _sqLongRun;
         private int _inside;
 
         public int N { get; private set; }
         public double Dtw => N == 0 ? 0 : Math.Sqrt(_sqDtw / N);
         public double Ties => N == 0 ? 0 : Math.Sqrt(_sqTies / N);
         public double Coverage => N == 0 ? 1 : (double)_inside / N;
+
+        /// <summary>RMS of the least-squares line through the truth itself, fitted at each end apart: what no method can know.</summary>
+        public double BestLine => N == 0 ? 0 : Math.Sqrt(_sqBestLine / N);
+
+        /// <summary>RMS of the truth continued from its value at the overlap's end at its overall ratio over the overlap.</summary>
+        public double LongRun => N == 0 ? 0 : Math.Sqrt(_sqLongRun / N);
 
         public void Add(double dtwError, double tiesError, bool held)
         {
@@ -146,9 +163,39 @@ public class SiteShapeAlignmentTests(ITestOutputHelper output)
             N++;
         }
 
-        public Figures With(Figures other) => new() { _sqDtw = _sqDtw + other._sqDtw, _sqTies = _sqTies + other._sqTies, _inside = _inside + other._inside, N = N + other.N };
+        /// <summary>
+        /// The two reference continuations past the reference's ends (composite depth below 0 or beyond
+        /// <paramref name="referenceBottom"/>), at the same samples as <see cref="Add"/> counted there.
+        /// </summary>
+        public void AddContinuations(CoreTruth truth, double referenceBottom)
+        {
+            var inOverlap = Enumerable.Range(0, truth.Depths.Length).Where(k => truth.CompositeDepths[k] >= 0 && truth.CompositeDepths[k] <= referenceBottom).ToList();
+            if (inOverlap.Count < 2) return;
+            double top = truth.Depths[inOverlap[0]], bottom = truth.Depths[inOverlap[^1]];
+            double ratio = (truth.CompositeDepthAt(bottom) - truth.CompositeDepthAt(top)) / (bottom - top);
+            foreach (bool below in new[] { false, true })
+            {
+                var past = Enumerable.Range(0, truth.Depths.Length).Where(k => below ? truth.CompositeDepths[k] > referenceBottom : truth.CompositeDepths[k] < 0).ToList();
+                if (past.Count == 0) continue;
+                double[] z = past.Select(k => truth.Depths[k]).ToArray(), t = past.Select(k => truth.CompositeDepths[k]).ToArray();
+                var (a, b) = z.Length > 1 ? MathNet.Numerics.Fit.Line(z, t) : (t[0], 0.0);
+                double end = below ? bottom : top, atEnd = truth.CompositeDepthAt(end);
+                for (int i = 0; i < z.Length; i++)
+                {
+                    _sqBestLine += Math.Pow(a + b * z[i] - t[i], 2);
+                    _sqLongRun += Math.Pow(atEnd + ratio * (z[i] - end) - t[i], 2);
+                }
+            }
+        }
 
-        public override string ToString() => $"{N} samples, RMS dtw {Dtw:0.00}, ties {Ties:0.00} cm, band {Coverage:P1}";
+        public Figures With(Figures other) => new()
+        {
+            _sqDtw = _sqDtw + other._sqDtw, _sqTies = _sqTies + other._sqTies, _sqBestLine = _sqBestLine + other._sqBestLine,
+            _sqLongRun = _sqLongRun + other._sqLongRun, _inside = _inside + other._inside, N = N + other.N,
+        };
+
+        public override string ToString() => $"{N} samples, RMS dtw {Dtw:0.00}, ties {Ties:0.00} cm, band {Coverage:P1}"
+            + (_sqBestLine > 0 ? $", the truth continued at its overall ratio {LongRun:0.00} cm, the best line through the truth {BestLine:0.00} cm" : "");
     }
 
     internal static LoadedProject Load(DemoSite site)

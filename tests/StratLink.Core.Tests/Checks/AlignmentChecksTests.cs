@@ -123,17 +123,20 @@ public sealed class AlignmentChecksTests
         var f = Assert.Single(Run(lp, new CheckContext { Aligner = aligner.Align }), f => f.Code == CheckCodes.LoopClosure);
         Assert.Equal(Severity.Warning, f.Severity);
         Assert.Contains("differs by 6 cm", f.Message);
+        // The worst of many points: 3 for one comparison is raised for their effective number.
+        Assert.Contains("3 for one comparison, raised for the worst of about 10 independent points", f.Message);
         Assert.Equal(("A", "A/C"), (f.Core, f.Item));
         Assert.Equal(50, f.Depth!.Value, 1.0);
     }
 
     [Theory]
     // A's mapping to C alone bulges by 6 cm at A = 50 cm; the site's has no band, so on the optimal paths
-    // the limit is 3 x 1 cm (one grid step) and the pair is aligned again with its path ensemble. Its
+    // the limit is k x 1 cm (one grid step; k = 3 for one comparison, 3.64 for the worst of the bulge's
+    // effective 10 independent points) and the pair is aligned again with its path ensemble. Its
     // own band (half-width h) is a standard uncertainty of h / 1.96 (95 % range of a normal spread),
-    // combined with the grid step: 3 x sqrt(1 + (h / 1.96)^2).
-    [InlineData(5.0, Severity.Note)] // limit 3 x 2.74 = 8.2 cm > 6 cm
-    [InlineData(1.0, Severity.Warning)] // limit 3 x 1.12 = 3.4 cm < 6 cm
+    // combined with the grid step: k x sqrt(1 + (h / 1.96)^2).
+    [InlineData(5.0, Severity.Note)] // limit 3.64 x 2.74 = 10.0 cm > 6 cm
+    [InlineData(1.0, Severity.Warning)] // limit 3.64 x 1.12 = 4.1 cm < 6 cm
     public void OnTheSiteScaleAPairThatWouldWarnIsJudgedAgainstItsOwnSampledBand(double band, Severity expected)
     {
         var aligner = new LinearTruthAligner(Truth);
@@ -195,8 +198,9 @@ public sealed class AlignmentChecksTests
     // Composite band half-width h on A's and C's site mappings: each a standard uncertainty of h / 1.96
     // (95 % range of a normal spread), combined in quadrature, doubled in variance for the direct
     // alignment's own, and carried to C's depth by C's rate (1.2 cm per composite cm): 1.22 h. With the
-    // tie uncertainty (0.5 cm, or one grid step) the limit is 3 x sqrt(sigma^2 + (1.22 h)^2).
-    [InlineData(0.5, Severity.Warning)] // limit at most 3 x sqrt(1 + 0.37) = 3.5 cm < 6 cm
+    // tie uncertainty (0.5 cm, or one grid step) the limit is k x sqrt(sigma^2 + (1.22 h)^2), k = 3.64
+    // for the worst of the bulge's effective 10 independent points.
+    [InlineData(0.5, Severity.Warning)] // limit at most 3.64 x sqrt(1 + 0.37) = 4.3 cm < 6 cm
     [InlineData(2.0, Severity.Note)] // limit at least 3 x 2.45 = 7.3 cm > 6 cm
     public void OnTheSiteScaleTheCompositesBandWidensTheLimit(double band, Severity expected)
     {

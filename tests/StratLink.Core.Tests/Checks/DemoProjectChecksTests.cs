@@ -72,7 +72,7 @@ public sealed class DemoProjectChecksTests(ITestOutputHelper output)
     [InlineData(1)]
     [InlineData(2)]
     [InlineData(3)]
-    [InlineData(4, Skip = "Open problem: MW19-G3 aligned to MW19-P2 alone is 2.1 cm off the site at 104.5 cm of MW19-G3, against a limit of 3 x 0.69 cm; the site is within 0.1-0.6 cm of the truth there, the pair alone 1.5-2 cm off with a sampled band of under 0.5 cm: the pair's own band is overconfident by about a grid step")]
+    [InlineData(4)]
     [InlineData(5)]
     [InlineData(6)]
     [InlineData(7)]
