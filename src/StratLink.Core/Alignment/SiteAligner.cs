@@ -44,7 +44,7 @@ internal static class SiteAligner
         Dictionary<string, CoreAlignmentDiagnostics> diagnostics, DtwCoreOptions options, DepthUnit unit, FindingList findings, CancellationToken ct)
     {
         var optimalOnly = options with { Ensemble = 0 };
-        StartFromTiesWhereMostlyOutside(reference, members, mappings, unit);
+        bool shortReference = StartFromTiesWhereMostlyOutside(reference, members, mappings, unit);
         var carriers = CarriersOf(reference, members, mappings);
         int rounds = 0;
         bool settled = false;
@@ -52,13 +52,13 @@ internal static class SiteAligner
         while (!settled && rounds < MaxRounds)
         {
             rounds++;
-            last = Round(reference, members, mappings, carriers, optimalOnly, unit, ct);
+            last = Round(reference, members, mappings, carriers, optimalOnly, unit, ct, shortReference);
             settled = Apply(members, mappings, diagnostics, last, rounds) <= reference.Step;
             ContinueCarriers(reference, members, mappings, carriers, unit);
         }
         if (options.Ensemble > 0)
         {
-            last = Round(reference, members, mappings, carriers, options, unit, ct);
+            last = Round(reference, members, mappings, carriers, options, unit, ct, shortReference);
             Apply(members, mappings, diagnostics, last, rounds);
             ContinueCarriers(reference, members, mappings, carriers, unit, options.Seed);
             ShareScalePastReference(reference, members, mappings, carriers, unit);
@@ -72,10 +72,14 @@ internal static class SiteAligner
     /// alignment to the reference alone (it is squeezed onto the reference), so it starts from its
     /// straight-line-ties mapping: beyond the reference the stack is then made of the cores that
     /// reach there as their ties (marker layers shared with other cores) place them, and each is
-    /// matched to the others there in the rounds.
+    /// matched to the others there in the rounds. Returns whether any core so started (a short
+    /// reference): then the stack over the reference's span is the reference alone in every round,
+    /// since the others' placements there start as ties' lines, which err alike between the same
+    /// markers, or squeezed onto the reference, and matched to those the cores keep the error they share.
     /// </summary>
-    private static void StartFromTiesWhereMostlyOutside(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, DepthUnit unit)
+    private static bool StartFromTiesWhereMostlyOutside(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, DepthUnit unit)
     {
+        bool any = false;
         double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
         foreach (var c in members)
         {
@@ -83,8 +87,11 @@ internal static class SiteAligner
             double top = c.Signals.DepthAt(0), bottom = c.Signals.DepthAt(c.Signals.Count - 1);
             var line = TieNetwork.StraightLines(c.CoreId, unit, [.. c.Ties.OrderBy(t => t.CoreDepth)], top, bottom);
             double outside = Math.Max(0, refTop - line.ToCompositeValue(top)) + Math.Max(0, line.ToCompositeValue(bottom) - refBottom);
-            if (outside > 0.5 * (line.ToCompositeValue(bottom) - line.ToCompositeValue(top))) mappings[c.CoreId] = new MappingEnsemble(line, []);
+            if (!(outside > 0.5 * (line.ToCompositeValue(bottom) - line.ToCompositeValue(top)))) continue;
+            mappings[c.CoreId] = new MappingEnsemble(line, []);
+            any = true;
         }
+        return any;
     }
 
     /// <summary>The cores carrying the composite scale above the reference's top and below its base (null where fewer than two run past it by more than 1 % of the reference, at least 2 steps).</summary>
@@ -175,7 +182,7 @@ internal static class SiteAligner
     /// carries, beyond which it is continued.
     /// </summary>
     private static (MappingEnsemble Mapping, CoreAlignmentDiagnostics Diagnostics, FindingList Findings)[] Round(PreparedSignals reference, IReadOnlyList<Member> members,
-        Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DtwCoreOptions options, DepthUnit unit, CancellationToken ct)
+        Dictionary<string, MappingEnsemble> mappings, Carriers carriers, DtwCoreOptions options, DepthUnit unit, CancellationToken ct, bool referenceAlone)
     {
         var current = mappings.ToDictionary(kv => kv.Key, kv => kv.Value.Median, StringComparer.Ordinal);
         var next = new (MappingEnsemble, CoreAlignmentDiagnostics, FindingList)[members.Count];
@@ -186,7 +193,7 @@ internal static class SiteAligner
             others.AddRange(members.Where(o => o.CoreId != c.CoreId).Select(o => (o.Signals, current[o.CoreId])));
             double from = c.CoreId == carriers.Top ? reference.DepthAt(0) : double.NegativeInfinity;
             double to = c.CoreId == carriers.Bottom ? reference.DepthAt(reference.Count - 1) : double.PositiveInfinity;
-            var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step, from, to).Select(c.Signals.Signals);
+            var stack = Stack(reference.CoreId, reference.Signals, others, reference.Step, from, to, referenceAlone).Select(c.Signals.Signals);
             var local = new FindingList();
             using (StageTimes.Measure("align"))
             {
@@ -225,10 +232,11 @@ internal static class SiteAligner
     /// Signals of <paramref name="cores"/> on the composite grid (the reference's step, spanning every
     /// core's mapped extent within <paramref name="from"/>-<paramref name="to"/>): at each row the mean, over
     /// cores reaching it, of the core's value at the core depth the mapping gives there (linear between
-    /// grid rows; missing where either is).
+    /// grid rows; missing where either is). With <paramref name="referenceAlone"/>, the stack over
+    /// the span of the core named <paramref name="id"/> (the reference) is that core's alone, gaps included.
     /// </summary>
     internal static PreparedSignals Stack(string id, string[] signals, IReadOnlyList<(PreparedSignals Signals, DepthMapping Map)> cores, double step,
-        double from = double.NegativeInfinity, double to = double.PositiveInfinity)
+        double from = double.NegativeInfinity, double to = double.PositiveInfinity, bool referenceAlone = false)
     {
         double top = double.PositiveInfinity, bottom = double.NegativeInfinity;
         foreach (var (s, map) in cores)
@@ -240,6 +248,7 @@ internal static class SiteAligner
         int count = (int)Math.Ceiling((bottom - top) / step - 1e-9) + 1, dims = signals.Length;
         var sum = new double[count * dims];
         var n = new int[count * dims];
+        var span = cores.Where(c => referenceAlone && c.Signals.CoreId == id).Select(c => (Top: c.Signals.Top, Bottom: c.Signals.DepthAt(c.Signals.Count - 1))).SingleOrDefault();
         foreach (var (s, map) in cores)
         {
             var own = s.Select(signals);
@@ -247,6 +256,7 @@ internal static class SiteAligner
             int k1 = Math.Min(count - 1, (int)Math.Floor((Math.Min(to, map.ToCompositeValue(s.DepthAt(s.Count - 1))) - top) / step + 1e-9));
             for (int k = k0; k <= k1; k++)
             {
+                if (referenceAlone && s.CoreId != id && top + k * step >= span.Top && top + k * step <= span.Bottom) continue;
                 double r = (map.ToCoreValue(top + k * step) - s.Top) / s.Step;
                 int i0 = Math.Clamp((int)Math.Floor(r), 0, s.Count - 1), i1 = Math.Min(i0 + 1, s.Count - 1);
                 double f = Math.Clamp(r - i0, 0, 1);
