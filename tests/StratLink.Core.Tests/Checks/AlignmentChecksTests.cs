@@ -16,12 +16,12 @@ public sealed class AlignmentChecksTests
         ["C"] = (1.2, -3.0),
     };
 
-    private static Project ThreeCores(double shiftOfM2InB, double uncertainty = 0.5)
+    private static Project ThreeCores(double shiftOfM2InB, double uncertainty = 0.5, double shiftOfM3InB = 0)
     {
         var aligner = new LinearTruthAligner(Truth);
         MarkerSpec M(string id, double t, double shiftB = 0) =>
             Marker(id, uncertainty, ("A", aligner.CoreDepthOf("A", t)), ("B", aligner.CoreDepthOf("B", t) + shiftB), ("C", aligner.CoreDepthOf("C", t)));
-        return Project(["A", "B", "C"], [M("m1", 20), M("m2", 50, shiftOfM2InB), M("m3", 75)]);
+        return Project(["A", "B", "C"], [M("m1", 20), M("m2", 50, shiftOfM2InB), M("m3", 75, shiftOfM3InB)]);
     }
 
     private static LoadedProject LoadThree(Project p) => Load(p, Table("A", 0, 100), Table("B", 0, 90), Table("C", 0, 120));
@@ -39,10 +39,51 @@ public sealed class AlignmentChecksTests
         Assert.Equal(("B", "m2", Severity.Warning), (f.Core, f.Item, f.Severity));
         Assert.Equal(aligner.CoreDepthOf("B", 50) + 6, f.Depth);
         Assert.Contains("6 cm from the tie", f.Message);
-        // Leave-one-out: each marker was left out of one alignment, which asked for no ensemble.
-        var leftOut = aligner.Calls.Where(c => c.Markers.Count == 2).Select(c => "m1 m2 m3".Split(' ').Except(c.Markers.Select(m => m.Id)).Single());
-        Assert.Equal(["m1", "m2", "m3"], leftOut.Order());
-        Assert.All(aligner.Calls, c => Assert.Equal(0, c.Alignment.Ensemble));
+        // Leave-one-out: each marker was left out of one alignment to the reference alone on optimal
+        // paths (no ensemble); m2, whose misfit would be reported, once more with sampled paths, and,
+        // still off, last on the project's own (site) scale.
+        string LeftOut(Project c) => "m1 m2 m3".Split(' ').Except(c.Markers.Select(m => m.Id)).Single();
+        var leftOut = aligner.Calls.Where(c => c.Markers.Count == 2).ToList();
+        Assert.Equal(["m1", "m2", "m3"], leftOut.Where(c => c.Alignment.Ensemble == 0).Select(LeftOut).Order());
+        Assert.All(leftOut.Where(c => c.Alignment.Ensemble == 0), c => Assert.Equal(AlignmentScales.Reference, c.Alignment.Scale));
+        Assert.Equal([("m2", AlignmentScales.Reference), ("m2", AlignmentScales.Site)],
+            leftOut.Where(c => c.Alignment.Ensemble > 0).Select(c => (LeftOut(c), c.Alignment.Scale)).Order());
+        Assert.Contains("on the site scale", f.Message);
+    }
+
+    [Fact]
+    public void ATieThatOnlyAnOpenEndWouldPlaceIsANoteNotAWarning()
+    {
+        // m3 (the deepest marker) is 6 cm off in B, and B's base is left open: left out, nothing holds
+        // B below m2, so where the path puts m3 is the open end's choice, not the signals'.
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.OpenEnds[("A", "B")] = (false, true);
+        var findings = Run(LoadThree(ThreeCores(shiftOfM2InB: 0, shiftOfM3InB: 6)), new CheckContext { Aligner = aligner.Align });
+        var f = Assert.Single(findings, f => f.Code == CheckCodes.TieMisfit);
+        Assert.Equal(("B", "m3", Severity.Note), (f.Core, f.Item, f.Severity));
+        Assert.Contains("no tie between the marker and its base", f.Message);
+    }
+
+    [Theory]
+    // m2 is 6 cm off in B. Sampled without it, B's members lie h composite cm either side of the
+    // truth, 0.8 h cm of B (B runs at 0.8 cm per cm of A): a 95 % range of 1.6 h, standard uncertainty
+    // 1.6 h / 3.92, combined with the 1 cm grid step: the limit is 3 x sqrt(1 + (0.41 h)^2).
+    [InlineData(10.0, false)] // limit 3 x 4.2 = 12.6 cm > 6 cm: the signals alone cannot place m2 that well
+    [InlineData(1.0, true)] // limit 3 x 1.08 = 3.2 cm < 6 cm
+    public void ATieIsJudgedAgainstTheSpreadOfTheSignalsPlacementWithoutIt(double halfWidth, bool reported)
+    {
+        var aligner = new LinearTruthAligner(Truth);
+        aligner.SampledBands[("A", "B")] = halfWidth;
+        var findings = Run(LoadThree(ThreeCores(shiftOfM2InB: 6)), new CheckContext { Aligner = aligner.Align });
+        var misfits = findings.Where(f => f.Code == CheckCodes.TieMisfit).ToList();
+        if (!reported)
+        {
+            Assert.Empty(misfits);
+            return;
+        }
+        var f = Assert.Single(misfits);
+        Assert.Equal(("B", "m2"), (f.Core, f.Item));
+        Assert.Contains("the signals' 95 % range there is", f.Message);
     }
 
     [Fact]
