@@ -51,21 +51,24 @@ internal static class TieMisfitCheck
         var network = TieNetwork.Build(p, loaded.Tables, []);
         var sampled = new AlignmentResult?[candidates.Count];
         var onSite = new bool[candidates.Count];
-        bool Reported(int i) => results[i].Result is { } result && Misfits(r, loaded, network, candidates[i], result, sampled[i], onSite[i]).Any(f => f.Distance > f.Limit);
-        var again = Enumerable.Range(0, candidates.Count).Where(Reported).ToList();
+        // Only a misfit where the signals had a say is worth more alignments; one that rests on an end is a note as it stands.
+        bool Warns(int i) => results[i].Result is { } result
+            && Misfits(r, loaded, network, candidates[i], result, sampled[i], onSite[i]).Any(f => f.Unheld is null && f.Distance > f.Limit);
+        var again = Enumerable.Range(0, candidates.Count).Where(Warns).ToList();
         Parallel.ForEach(again, new ParallelOptions { CancellationToken = ct }, i =>
             sampled[i] = AlignmentRuns.TryAlign(aligner, loaded, Without(p, candidates[i]), ct, out _, MarkerEnsemble));
-        // What still disagrees where the signals had a say is judged last by the project's own
-        // alignment: on the site scale every core is matched to the others too; its rounds are paid only here.
+        // What still disagrees is judged last by the project's own alignment: on the site scale every
+        // core is matched to the others too; its rounds are paid only here, on optimal paths first.
         if (p.Alignment.Scale == AlignmentScales.Site && loaded.Tables.Count >= 3)
         {
-            var still = again.Where(i => Misfits(r, loaded, network, candidates[i], results[i].Result!, sampled[i], false).Any(f => f.Unheld is null && f.Distance > f.Limit)).ToList();
+            var still = again.Where(Warns).ToList();
             Parallel.ForEach(still, new ParallelOptions { CancellationToken = ct }, i =>
             {
-                if (AlignmentRuns.TryAlign(aligner, loaded, Without(p, candidates[i]) with { Alignment = p.Alignment }, ct, out _, MarkerEnsemble) is not { } site) return;
-                results[i].Result = site;
-                sampled[i] = site;
-                onSite[i] = true;
+                var onTheSite = Without(p, candidates[i]) with { Alignment = p.Alignment };
+                if (AlignmentRuns.TryAlign(aligner, loaded, onTheSite, ct, out _) is not { } site) return;
+                (results[i].Result, sampled[i], onSite[i]) = (site, null, true);
+                if (Warns(i) && AlignmentRuns.TryAlign(aligner, loaded, onTheSite, ct, out _, MarkerEnsemble) is { } sampledSite)
+                    (results[i].Result, sampled[i]) = (sampledSite, sampledSite);
             });
         }
         for (int i = 0; i < candidates.Count; i++)
