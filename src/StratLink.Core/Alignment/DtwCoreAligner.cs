@@ -166,12 +166,12 @@ public static class DtwCoreAligner
             members[e] = aligned[e] = resolution.Spread(ToMapping(core, reference, cost, unit, mi, mj, forced), new Random(Seeds.Derive(options.Seed, core.CoreId + "/cell", e)));
             if (ends is not null) members[e] = ends.Apply(members[e], new Random(Seeds.Derive(options.Seed, core.CoreId + "/ends", e)));
         });
-        if (ends is null) return (new MappingEnsemble(PointwiseMedian(core, unit, members, double.NegativeInfinity, double.PositiveInfinity), members), diagnostics);
+        if (ends is null) return (new MappingEnsemble(PointwiseMedian(core, unit, members, double.NegativeInfinity, double.PositiveInfinity, optimalMapping), members), diagnostics);
         // Past the matched ends the median is the continuation of the members' median, not the
         // median of their random continuations: those are drawn around that same continuation, and
         // a band tens of cm wide would leave a few hundred members' median off it by a cm or more.
         var (top, bottom) = ends.MatchedSpan(aligned);
-        return (new MappingEnsemble(ends.Apply(PointwiseMedian(core, unit, members, top, bottom), null), members), diagnostics);
+        return (new MappingEnsemble(ends.Apply(PointwiseMedian(core, unit, members, top, bottom, optimalMapping), null), members), diagnostics);
     }
 
     /// <summary>
@@ -479,8 +479,13 @@ public static class DtwCoreAligner
         return Thin(core.CoreId, unit, x, y);
     }
 
-    /// <summary>The members' median at every grid row from <paramref name="top"/> to <paramref name="bottom"/> (all rows where that leaves fewer than two).</summary>
-    internal static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members, double top, double bottom)
+    /// <summary>
+    /// The members' median at every grid row from <paramref name="top"/> to <paramref name="bottom"/> (all rows where that leaves fewer than two).
+    /// With <paramref name="mode"/> (the optimal path: the posterior's mode), at a row where the members
+    /// form several modes (<see cref="PosteriorModes"/>) the median is that of the mode holding it, and the
+    /// rows are then made monotone again by pool-adjacent-violators (the least-squares monotone fit).
+    /// </summary>
+    internal static DepthMapping PointwiseMedian(PreparedSignals core, DepthUnit unit, DepthMapping[] members, double top, double bottom, DepthMapping? mode = null)
     {
         int first = 0, last = core.Count - 1;
         while (first < last && core.DepthAt(first) < top) first++;
@@ -498,10 +503,35 @@ public static class DtwCoreAligner
                 for (int e = 0; e < v.Length; e++) v[e] = members[e].ToCompositeValue(z);
                 Array.Sort(v);
                 x[i] = z;
-                y[i] = Statistics.PercentileSorted(v, 50);
+                y[i] = mode is null ? Statistics.PercentileSorted(v, 50) : PosteriorModes.MedianOfModeHolding(v, mode.ToCompositeValue(z));
             }
         });
+        if (mode is not null) MakeMonotone(y);
         return Thin(core.CoreId, unit, [.. x], [.. y]);
+    }
+
+    /// <summary>Pool-adjacent-violators: the non-decreasing sequence nearest <paramref name="y"/> in least squares (unchanged where already so).</summary>
+    private static void MakeMonotone(double[] y)
+    {
+        var level = new List<double>();
+        var size = new List<int>();
+        foreach (double v in y)
+        {
+            level.Add(v);
+            size.Add(1);
+            while (level.Count > 1 && level[^2] > level[^1])
+            {
+                int a = size[^2], b = size[^1];
+                level[^2] = (level[^2] * a + level[^1] * b) / (a + b);
+                size[^2] = a + b;
+                level.RemoveAt(level.Count - 1);
+                size.RemoveAt(size.Count - 1);
+            }
+        }
+        if (level.Count == y.Length) return;
+        int k = 0;
+        for (int b = 0; b < level.Count; b++)
+            for (int t = 0; t < size[b]; t++) y[k++] = level[b];
     }
 
     /// <summary>Drops knots that lie on the line through their neighbours (long runs at one rate).</summary>
