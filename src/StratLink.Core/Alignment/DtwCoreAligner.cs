@@ -506,32 +506,8 @@ public static class DtwCoreAligner
                 y[i] = mode is null ? Statistics.PercentileSorted(v, 50) : PosteriorModes.MedianOfModeHolding(v, mode.ToCompositeValue(z));
             }
         });
-        if (mode is not null) MakeMonotone(y);
+        if (mode is not null) AgeModelling.StratigraphicOrder.Pool([.. Enumerable.Range(0, y.Length)], y, [.. Enumerable.Repeat(1.0, y.Length)]);
         return Thin(core.CoreId, unit, [.. x], [.. y]);
-    }
-
-    /// <summary>Pool-adjacent-violators: the non-decreasing sequence nearest <paramref name="y"/> in least squares (unchanged where already so).</summary>
-    private static void MakeMonotone(double[] y)
-    {
-        var level = new List<double>();
-        var size = new List<int>();
-        foreach (double v in y)
-        {
-            level.Add(v);
-            size.Add(1);
-            while (level.Count > 1 && level[^2] > level[^1])
-            {
-                int a = size[^2], b = size[^1];
-                level[^2] = (level[^2] * a + level[^1] * b) / (a + b);
-                size[^2] = a + b;
-                level.RemoveAt(level.Count - 1);
-                size.RemoveAt(size.Count - 1);
-            }
-        }
-        if (level.Count == y.Length) return;
-        int k = 0;
-        for (int b = 0; b < level.Count; b++)
-            for (int t = 0; t < size[b]; t++) y[k++] = level[b];
     }
 
     /// <summary>Drops knots that lie on the line through their neighbours (long runs at one rate).</summary>
