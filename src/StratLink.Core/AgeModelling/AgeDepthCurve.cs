@@ -14,6 +14,9 @@ public sealed class AgeDepthCurve
     private readonly double[] _z;
     private readonly double[] _age;
     private readonly CubicSpline? _spline;
+    // Ages are held at it; the slope is left as the curve has it, so above the surface a member's rate is the one
+    // it had next to it, not an infinite one, and a core's rate at its top stays readable.
+    private readonly double _youngestBP = double.NegativeInfinity;
 
     public AgeDepthCurve(double[] compositeDepths, double[] agesBP, AgeInterpolation interpolation)
         : this(compositeDepths, agesBP, interpolation, double.NaN, double.NaN)
@@ -45,6 +48,19 @@ public sealed class AgeDepthCurve
         if (!walked && interpolation == AgeInterpolation.MonotoneSpline && _z.Length > 2) _spline = CubicSpline.InterpolatePchipSorted(_z, _age);
     }
 
+    private AgeDepthCurve(AgeDepthCurve curve, double youngestBP)
+    {
+        (_z, _age, _spline, Interpolation, TopDepth, BottomDepth) = (curve._z, curve._age, curve._spline, curve.Interpolation, curve.TopDepth, curve.BottomDepth);
+        _youngestBP = Math.Max(curve._youngestBP, youngestBP);
+    }
+
+    /// <summary>
+    /// The same curve with no age younger than <paramref name="youngestBP"/> (the coring year): above the depth
+    /// where it reaches that age, where the member has no sediment, it stays at it instead of extrapolating
+    /// into the future. The knots are unchanged.
+    /// </summary>
+    internal AgeDepthCurve NoYoungerThan(double youngestBP) => new(this, youngestBP);
+
     public AgeInterpolation Interpolation { get; }
     public IReadOnlyList<double> CompositeDepths => _z;
     public IReadOnlyList<double> AgesBP => _age;
@@ -73,10 +89,10 @@ public sealed class AgeDepthCurve
         {
             int i = Segment(compositeDepth);
             yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
-            return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
+            return Math.Max(_age[i] + yearsPerUnit * (compositeDepth - _z[i]), _youngestBP);
         }
         yearsPerUnit = _spline.Differentiate(compositeDepth);
-        return _spline.Interpolate(compositeDepth);
+        return Math.Max(_spline.Interpolate(compositeDepth), _youngestBP);
     }
 
     /// <summary>
@@ -91,7 +107,7 @@ public sealed class AgeDepthCurve
         else while (i < _z.Length - 2 && _z[i + 1] <= compositeDepth) i++;
         segment = i;
         yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
-        return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
+        return Math.Max(_age[i] + yearsPerUnit * (compositeDepth - _z[i]), _youngestBP);
     }
 
     private int Segment(double z)

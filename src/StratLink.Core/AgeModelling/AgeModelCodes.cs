@@ -17,4 +17,5 @@ public static class AgeModelCodes
     public const string Outlier = "age-model.outlier";
     public const string FewEffective = "age-model.effective-members";
     public const string TargetAges = "age-model.target-ages";
+    public const string AfterCoring = "age-model.after-coring";
 }

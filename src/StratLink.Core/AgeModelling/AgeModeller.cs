@@ -79,6 +79,7 @@ public static class AgeModeller
         }
         int[] active = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null && !specs[c].Exclude).ToArray();
         int[] measured = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null).ToArray();
+        NoteAgesAfterCoring(p, findings);
         foreach (int c in Enumerable.Range(0, specs.Count).Where(c => specs[c].Exclude))
             findings.Add(Finding.Note(AgeModelCodes.Excluded, $"age control {specs[c].Id} is excluded by the project file (exclude: true): listed, not used.") with { Item = specs[c].Id });
 
@@ -105,6 +106,8 @@ public static class AgeModeller
             walk = new RateWalk(p.AgeModel.RateVariability, step, top - step, bottom + step);
         }
 
+        // No member's age is younger than the site's last coring: above that age it has no sediment.
+        double youngestBP = p.Cores.Max(c => c.CoringYear) is int lastCoring ? CalendarAge.FromYearCE(lastCoring).YearsBP : double.NegativeInfinity;
         var draws = new IterationDraws(specs.Count, iterations);
         var proposals = new AgeDepthCurve[iterations];
         var logWeights = new double[iterations];
@@ -112,7 +115,7 @@ public static class AgeModeller
         var options = new ParallelOptions { CancellationToken = ct };
         Parallel.For(0, iterations, options, () => new IterationBuffers(prepared, active, measured), (i, _, buffers) =>
         {
-            (proposals[i], logWeights[i]) = Iterate(i, seed, prepared, active, measured, backbone, placements, alignment, scales, interpolation, walk, buffers, draws, ref forced);
+            (proposals[i], logWeights[i]) = Iterate(i, seed, prepared, active, measured, backbone, placements, alignment, scales, interpolation, walk, youngestBP, buffers, draws, ref forced);
             int d = Interlocked.Increment(ref done);
             if (progress is not null && (d % Math.Max(1, iterations / 100) == 0 || d == iterations))
                 progress.Report(new WorkProgress("age model: iterations", d / (double)iterations));
@@ -156,7 +159,8 @@ public static class AgeModeller
                 continue;
             }
             var depths = DepthsIn(table, unit);
-            var series = Summarise(core.Id, false, unit, depths, ensemble, curves, source, scales.Of(core.Id), scales.Composite, options);
+            var series = Summarise(core.Id, false, unit, depths, ensemble, curves, source, scales.Of(core.Id), scales.Composite,
+                core.CoringYear is int year ? CalendarAge.FromYearCE(year).YearsBP : youngestBP, options);
             cores[core.Id] = series;
             NoteExtrapolation(series, findings);
             gridTop = Math.Min(gridTop, ensemble.Median.ToCompositeValue(depths[0]));
@@ -170,7 +174,7 @@ public static class AgeModeller
         }
         int first = (int)Math.Floor(gridTop / step), last = (int)Math.Ceiling(gridBottom / step);
         var grid = Enumerable.Range(first, last - first + 1).Select(k => k * step).ToArray();
-        var composite = Summarise("composite", true, unit, grid, null, curves, source, EventFreeScale.None, scales.Composite, options);
+        var composite = Summarise("composite", true, unit, grid, null, curves, source, EventFreeScale.None, scales.Composite, youngestBP, options);
 
         return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings) { CompositeEvents = scales.Composite };
     }
@@ -467,7 +471,7 @@ public static class AgeModeller
     /// outlier mixture; its posterior outlier probability in this member is recorded. Returns the log weight.
     /// </summary>
     private static (AgeDepthCurve Curve, double LogWeight) Iterate(int i, int seed, PreparedControl?[] prepared, int[] active, int[] measured, int backbone,
-        (double Depth, double Spread)[] placements, AlignmentResult alignment, EventScales scales, AgeInterpolation interpolation, RateWalk? walk, IterationBuffers b, IterationDraws draws, ref int forced)
+        (double Depth, double Spread)[] placements, AlignmentResult alignment, EventScales scales, AgeInterpolation interpolation, RateWalk? walk, double youngestBP, IterationBuffers b, IterationDraws draws, ref int forced)
     {
         int nControls = prepared.Length;
         foreach (int c in measured)
@@ -633,6 +637,7 @@ public static class AgeModeller
         var curve = BuildCurve(order, knotDepth, knotAge, interpolation, i);
         // The walk's stream follows the controls' streams (indices 0 .. controls - 1) of the same iteration.
         if (walk is not null) curve = walk.Apply(curve, new Random(SeedStreams.Derive(seed, i, nControls)));
+        if (youngestBP > double.NegativeInfinity) curve = curve.NoYoungerThan(youngestBP);
 
         foreach (int c in active)
         {
@@ -967,7 +972,7 @@ public static class AgeModeller
     /// depth d goes through mapping member i before curve i reads its age (and the rate through both slopes).
     /// </summary>
     private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves,
-        int[] source, EventFreeScale coreEvents, EventFreeScale compositeEvents, ParallelOptions options)
+        int[] source, EventFreeScale coreEvents, EventFreeScale compositeEvents, double youngestBP, ParallelOptions options)
     {
         int n = depths.Length, members = curves.Length;
         // A sample inside one of the core's event layers takes the age of the layer's base.
@@ -1026,7 +1031,8 @@ public static class AgeModeller
                 for (int s = 0; s < len; s++)
                 {
                     double z = zs is null ? gridModelDepths![from + s] : zs[from + s];
-                    buf.Ages[s * members + i] = curve.AgeAtAscending(z, ref segment, out double yearsPerUnit);
+                    // A core taken before the site's last coring is no younger than its own coring year.
+                    buf.Ages[s * members + i] = Math.Max(youngestBP, curve.AgeAtAscending(z, ref segment, out double yearsPerUnit));
                     buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
                     if (curve.IsExtrapolated(z)) outside[s]++;
                 }
@@ -1099,6 +1105,37 @@ public static class AgeModeller
         if (lastInside < series.Count - 1)
             findings.Add(Finding.Note(AgeModelCodes.Extrapolated,
                 $"{series.Count - 1 - lastInside} sample(s) of core {series.Id} ({Depth(series.Depths[lastInside + 1], series.Unit)} to {Depth(series.Depths[^1], series.Unit)}) lie below the deepest age control: their ages are extrapolated with the rate of the bottom segment.") with { Core = series.Id, Depth = series.Depths[lastInside + 1] });
+    }
+
+    /// <summary>
+    /// Warns of a calendar age or a varve count's anchor younger than its core's coring year by more than twice its
+    /// error: no sediment is younger than its coring, so the age, its core or the coring year is wrong.
+    /// </summary>
+    private static void NoteAgesAfterCoring(Project p, FindingList findings)
+    {
+        var coring = p.Cores.Where(c => c.CoringYear is not null).ToDictionary(c => c.Id, c => c.CoringYear!.Value, StringComparer.Ordinal);
+        if (coring.Count == 0) return;
+        foreach (var spec in p.Ages)
+        {
+            (double Age, double Error, string[] Cores) control = spec switch
+            {
+                CalendarAgeControl { Core: { } core } cal => (cal.Age.YearsBP, cal.Error, [core]),
+                CalendarAgeControl { Marker: { } marker } cal => (cal.Age.YearsBP, cal.Error,
+                    p.Markers.FirstOrDefault(m => m.Id == marker)?.Depths.Select(d => d.CoreId).ToArray() ?? []),
+                VarveCountControl v => (v.AnchorAge.YearsBP, v.AnchorError, [v.Core]),
+                _ => (double.NaN, 0, []),
+            };
+            var (age, error, cores) = control;
+            foreach (string core in cores)
+            {
+                if (!coring.TryGetValue(core, out int year)) continue;
+                double surface = CalendarAge.FromYearCE(year).YearsBP;
+                if (age < surface - 2 * error)
+                    findings.Add(Finding.Warning(AgeModelCodes.AfterCoring,
+                        $"age control {spec.Id} ({age.ToString("0.#", CultureInfo.InvariantCulture)} cal BP) is younger than core {core}'s coring year {year} CE ({surface.ToString("0.#", CultureInfo.InvariantCulture)} cal BP): no sediment is younger than its coring; check the age, its core or cores[{core}].coring_year.")
+                        with { Item = spec.Id, Core = core });
+            }
+        }
     }
 
     private static string Depth(double v, DepthUnit unit) => v.ToString("0.###", CultureInfo.InvariantCulture) + " " + unit.Symbol();

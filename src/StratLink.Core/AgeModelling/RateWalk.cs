@@ -10,7 +10,9 @@ namespace StratLink.AgeModelling;
 /// over them whose change across the whole interval has standard deviation <c>variability</c>; the sub-steps'
 /// durations (the interpolated curve's, times exp of the walk) are then rescaled so the ages hit both controls
 /// exactly (a bridge). Rates stay positive, so ages never decrease with depth. Beyond the end controls the rate
-/// of the nearest interval walks on with the same variability per unit depth, so the spread grows with distance.
+/// of the stretch next to the end walks on with the same variability per unit depth, so the spread grows with distance:
+/// that stretch is the nearest interval, widened over further controls until it is as long as the extrapolation
+/// (see <see cref="WindowEnd"/>), so an extrapolation as long as the controls' stretch is as uncertain as one interval.
 /// </summary>
 internal sealed class RateWalk
 {
@@ -47,26 +49,40 @@ internal sealed class RateWalk
         int k = z.Length;
         // The knots are counted first and written in place: a walked curve has thousands (a varve count's
         // points each make one), and growing lists for them cost more than the walk itself.
-        int above = _extentTop < z[0] ? ExtrapolationSteps(z[0] - _extentTop, z[1] - z[0], out _) : 0;
-        int below = _extentBottom > z[k - 1] ? ExtrapolationSteps(_extentBottom - z[k - 1], z[k - 1] - z[k - 2], out _) : 0;
+        int top = _extentTop < z[0] ? WindowEnd(z, 0, z[0] - _extentTop, +1) : 1;
+        int bottom = _extentBottom > z[k - 1] ? WindowEnd(z, k - 1, _extentBottom - z[k - 1], -1) : k - 2;
+        int above = _extentTop < z[0] ? ExtrapolationSteps(z[0] - _extentTop, z[top] - z[0], out _) : 0;
+        int below = _extentBottom > z[k - 1] ? ExtrapolationSteps(_extentBottom - z[k - 1], z[k - 1] - z[bottom], out _) : 0;
         int count = above + 1 + below;
         for (int s = 0; s + 1 < k; s++) count += StepsFor(z[s + 1] - z[s]);
         var zs = new double[count];
         var ys = new double[count];
 
         // Above the top control, walked upwards from it and written from the top control's knot upwards.
-        if (above > 0) Extrapolate(z[0], a[0], z[0] - _extentTop, -1, Rate(z, a, 0), z[1] - z[0], rng, zs, ys, above - 1, -1);
+        if (above > 0) Extrapolate(z[0], a[0], z[0] - _extentTop, -1, (a[top] - a[0]) / (z[top] - z[0]), z[top] - z[0], rng, zs, ys, above - 1, -1);
         int at = above;
         zs[at] = z[0];
         ys[at++] = a[0];
         for (int s = 0; s + 1 < k; s++) at = Bridge(controls, s, rng, zs, ys, at);
         if (below > 0)
-            Extrapolate(z[k - 1], a[k - 1], _extentBottom - z[k - 1], +1, Rate(z, a, k - 2), z[k - 1] - z[k - 2], rng, zs, ys, at, +1);
+            Extrapolate(z[k - 1], a[k - 1], _extentBottom - z[k - 1], +1, (a[k - 1] - a[bottom]) / (z[k - 1] - z[bottom]), z[k - 1] - z[bottom], rng, zs, ys, at, +1);
         return new AgeDepthCurve(zs, ys, z[0], z[k - 1], controls.Interpolation);
     }
 
-    private static double Rate(ReadOnlySpan<double> z, ReadOnlySpan<double> a, int segment) =>
-        (a[segment + 1] - a[segment]) / (z[segment + 1] - z[segment]);
+    /// <summary>
+    /// The knot that closes the stretch of controls next to the end knot <paramref name="end"/> (going
+    /// <paramref name="direction"/>) whose rate and length calibrate the walk over <paramref name="distance"/>
+    /// beyond it: the nearest interval, widened until it is as long as the distance or holds every control.
+    /// With sparse controls that is the nearest interval; with a varve count's dense points it is not one
+    /// varve, whose rate is that year's and whose length would scale the walk's variance to many times its
+    /// own per interval over a few centimetres.
+    /// </summary>
+    private static int WindowEnd(ReadOnlySpan<double> z, int end, double distance, int direction)
+    {
+        int j = end + direction;
+        while (j + direction >= 0 && j + direction < z.Length && Math.Abs(z[j] - z[end]) < distance) j += direction;
+        return j;
+    }
 
     private int StepsFor(double span) => (int)Math.Clamp(Math.Ceiling(span / _stepFloor - 1e-9), 1, StepsPerInterval);
 
@@ -128,7 +144,7 @@ internal sealed class RateWalk
 
     /// <summary>
     /// Knots from (z0, a0) outwards over <paramref name="distance"/> in direction <paramref name="sign"/> (-1 up, +1
-    /// down): the nearest interval's mean rate times exp of a walk with the interval's variance per unit depth.
+    /// down): the stretch's mean rate times exp of a walk with its variance per unit depth.
     /// Step j goes to index <paramref name="first"/> + <paramref name="stride"/> (j - 1), so the upward walk fills its knots in depth order.
     /// </summary>
     private void Extrapolate(double z0, double a0, double distance, int sign, double yearsPerUnit, double span, Random rng,

@@ -19,8 +19,10 @@ public static class DemoSiteGenerator
     public const string SiteName = "Mirrowick Fjord, inner basin";
     public const string FileStem = "mirrowick-fjord";
 
-    /// <summary>Coring year 2019 CE.</summary>
-    public const double CoringAgeBP = CalendarAge.ReferenceYearCE - 2019;
+    /// <summary>Every core of the site was taken in 2019 CE.</summary>
+    public const int CoringYearCE = 2019;
+
+    public const double CoringAgeBP = CalendarAge.ReferenceYearCE - CoringYearCE;
 
     /// <summary>Sample spacing in cm (the project unit).</summary>
     public const double SampleStep = 0.5;
@@ -126,6 +128,7 @@ public static class DemoSiteGenerator
                 Id = plan.Id,
                 Type = plan.Type,
                 Table = $"cores/{plan.Id}.csv",
+                CoringYear = CoringYearCE,
                 Signals = [.. SignalNames],
                 Gaps = [.. gaps],
                 Disturbed = disturbed,

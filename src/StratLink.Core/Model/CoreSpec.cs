@@ -58,6 +58,12 @@ public sealed record CoreSpec
 
     public double? Longitude { get; init; }
 
+    /// <summary>
+    /// Year the core was taken (CE). Nothing in it is younger: the age model keeps the core's ages, and the
+    /// composite's at the youngest coring year of the site, at or older than it (<c>1950 - year</c> cal BP).
+    /// </summary>
+    public int? CoringYear { get; init; }
+
     /// <summary>Signal name to its unit as free text (e.g. <c>d18O: permil VPDB</c>), for outputs that carry units.</summary>
     public ImmutableDictionary<string, string> Units { get; init; } = ImmutableDictionary<string, string>.Empty;
 

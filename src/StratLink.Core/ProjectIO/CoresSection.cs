@@ -57,11 +57,13 @@ internal static class CoresSection
             Citation = m.String("citation"),
             Latitude = m.Double("latitude"),
             Longitude = m.Double("longitude"),
+            CoringYear = m.Int("coring_year"),
             Units = m.StringMap("units"),
         };
         if (core.HeaderLine is < 1) m.Error("header_line", "header_line counts lines from 1");
         if (core.Latitude is < -90 or > 90) m.Error("latitude", $"latitude {core.Latitude} is outside -90..90");
         if (core.Longitude is < -180 or > 360) m.Error("longitude", $"longitude {core.Longitude} is outside -180..360");
+        if (core.CoringYear is < 1800 or > 2200) m.Error("coring_year", $"coring_year {core.CoringYear} is not a year CE of sediment coring (e.g. 2019)");
         foreach (var g in core.Columns.GroupBy(c => c.Value, StringComparer.Ordinal).Where(g => g.Count() > 1))
             m.Error("columns", $"columns {string.Join(" and ", g.Select(c => $"'{c.Key}'").Order(StringComparer.Ordinal))} are both mapped onto signal '{g.Key}'");
         m.Finish();
@@ -163,6 +165,7 @@ internal static class CoresSection
             if (c.Citation is not null) n.Add("citation", YamlOut.Str(c.Citation));
             if (c.Latitude is double lat) n.Add("latitude", YamlOut.Num(lat));
             if (c.Longitude is double lon) n.Add("longitude", YamlOut.Num(lon));
+            if (c.CoringYear is int year) n.Add("coring_year", YamlOut.Num(year));
             if (c.Gaps.Count > 0) n.Add("gaps", Intervals(c.Gaps, unit));
             if (c.Disturbed.Count > 0) n.Add("disturbed", Intervals(c.Disturbed, unit));
             if (c.Events.Count > 0) n.Add("events", Intervals(c.Events, unit));

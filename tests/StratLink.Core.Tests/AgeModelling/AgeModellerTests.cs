@@ -341,4 +341,38 @@ public class AgeModellerTests
         Assert.Contains("\n10.25,42.5,42.5,42.5,10.25,", sw.ToString());
         Assert.Equal("ages-R.csv", AgesCsvWriter.FileName("R"));
     }
+
+    [Fact]
+    public void A_core_with_its_coring_year_has_no_age_younger_than_it_and_the_composite_none_younger_than_the_last_coring()
+    {
+        // Exact controls 10 and 30 cm below the top at 5 yr/cm put the top 20 years after a 2019 coring unless the year holds
+        // them (cal BP counts years before 1950 CE, Stuiver and Polach 1977: 2019 CE is -69 cal BP).
+        var loaded = Project([Calendar("a", "R", 10, -20, 0), Calendar("b", "R", 30, 80, 0)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 40, 1) }, iterations: 500);
+        var aligned = Aligned(Affine("R", 1, 0));
+        var free = AgeModeller.Run(loaded, aligned, NoVarves, null, CancellationToken.None);
+        Assert.True(free.Cores["R"].AgeLoBP[0] < CalendarAge.FromYearCE(2019).YearsBP - 5, $"without the year the top's range starts at {free.Cores["R"].AgeLoBP[0]:0.0} cal BP");
+
+        var dated = loaded.WithProject(loaded.Project with { Cores = [.. loaded.Project.Cores.Select(c => c with { CoringYear = 2019 })] });
+        var held = AgeModeller.Run(dated, aligned, NoVarves, null, CancellationToken.None);
+        foreach (var series in new[] { held.Cores["R"], held.Composite! })
+            Assert.All(series.AgeLoBP, lo => Assert.True(lo >= CalendarAge.FromYearCE(2019).YearsBP, $"{series.Id}: {lo} cal BP"));
+        Assert.Equal(CalendarAge.FromYearCE(2019).YearsBP, held.Cores["R"].AgeMedianBP[0], 1e-9);
+        // Where the members are below the surface nothing changes: the same streams, the same ages.
+        Assert.Equal(free.Cores["R"].AgeMedianBP[25], held.Cores["R"].AgeMedianBP[25], 1e-9);
+    }
+
+    [Fact]
+    public void An_age_younger_than_its_cores_coring_year_is_a_warning()
+    {
+        // -75 cal BP (2025 CE) at 5 cm of a core taken in 2019 CE: beyond twice its 1-year error of the coring year.
+        var loaded = Project([Calendar("late", "R", 5, -75, 1), Calendar("b", "R", 30, 80, 0)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 40, 1) }, iterations: 200);
+        var dated = loaded.WithProject(loaded.Project with { Cores = [.. loaded.Project.Cores.Select(c => c with { CoringYear = 2019 })] });
+        var result = Run(dated, Aligned(Affine("R", 1, 0)));
+        var f = Assert.Single(result.Findings, f => f.Code == AgeModelCodes.AfterCoring);
+        Assert.Equal(("late", "R"), (f.Item, f.Core));
+        Assert.Contains("2019 CE (-69 cal BP)", f.Message);
+        Assert.DoesNotContain(Run(loaded, Aligned(Affine("R", 1, 0))).Findings, f => f.Code == AgeModelCodes.AfterCoring);
+    }
 }

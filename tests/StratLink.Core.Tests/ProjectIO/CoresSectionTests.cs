@@ -20,6 +20,7 @@ public sealed class CoresSectionTests
                 citation: "Author, A. (2021): Isotopes of GS-1"
                 latitude: 60.12
                 longitude: -5.34
+                coring_year: 2021
             """;
         var doc = ProjectReader.Parse(Head + core, "site.stratlink.yaml");
         Assert.Empty(doc.Problems);
@@ -30,6 +31,7 @@ public sealed class CoresSectionTests
         Assert.Equal("permil VPDB", c.Units["d18O"]);
         Assert.Equal("Author, A. (2021): Isotopes of GS-1", c.Citation);
         Assert.Equal((60.12, -5.34), (c.Latitude, c.Longitude));
+        Assert.Equal(2021, c.CoringYear);
 
         var again = ProjectReader.Parse(ProjectWriter.ToYaml(doc.Project), "site.stratlink.yaml");
         Assert.Empty(again.Problems);
@@ -43,6 +45,8 @@ public sealed class CoresSectionTests
     [InlineData("columns: {a: x, b: x}", "cores[GS-1].columns", "both mapped onto signal 'x'")]
     [InlineData("columns: [a, b]", "cores[GS-1].columns", "mapping of names")]
     [InlineData("latitude: 91", "cores[GS-1].latitude", "outside -90..90")]
+    [InlineData("coring_year: 19", "cores[GS-1].coring_year", "not a year CE")]
+    [InlineData("coring_year: 2019.5", "cores[GS-1].coring_year", "whole number")]
     public void Bad_values_name_the_key_and_the_line(string line, string field, string message)
     {
         var doc = ProjectReader.Parse(Head + "  - id: GS-1\n    table: t.csv\n    " + line + "\n", "site.stratlink.yaml");
