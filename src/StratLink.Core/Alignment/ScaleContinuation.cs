@@ -16,7 +16,10 @@ namespace StratLink.Alignment;
 /// this adds the scale's: member e of every core is moved as member e of the carrier departs from
 /// the carrier's median (y to carrier_e(carrier^-1(y)), less that member's departure at the
 /// reference's end, which is matching jitter and not the scale's), one perturbation of the scale
-/// per member index shared by all cores, so member e stays consistent across cores. A common
+/// per member index shared by all cores, so member e stays consistent across cores. Where the
+/// bands past the end fall short of what a straight continuation is measured to err over the
+/// overlap (<see cref="ExtrapolationError"/>), one more such perturbation widens them
+/// (<see cref="WidenToMeasuredError"/>). A common
 /// reference for the shared perturbation is how stacks carry one age model's uncertainty into every
 /// record tuned to it (Lisiecki and Raymo 2005, from memory).
 /// </summary>
