@@ -16,7 +16,10 @@ namespace StratLink.Alignment;
 /// this adds the scale's: member e of every core is moved as member e of the carrier departs from
 /// the carrier's median (y to carrier_e(carrier^-1(y)), less that member's departure at the
 /// reference's end, which is matching jitter and not the scale's), one perturbation of the scale
-/// per member index shared by all cores, so member e stays consistent across cores. A common
+/// per member index shared by all cores, so member e stays consistent across cores. Where the
+/// bands past the end fall short of what a straight continuation is measured to err over the
+/// overlap (<see cref="ExtrapolationError"/>), one more such perturbation widens them
+/// (<see cref="WidenToMeasuredError"/>). A common
 /// reference for the shared perturbation is how stacks carry one age model's uncertainty into every
 /// record tuned to it (Lisiecki and Raymo 2005, from memory).
 /// </summary>
@@ -111,6 +114,110 @@ internal sealed class ScaleContinuation
         if (carrier.Members.Count == 0) return new MappingEnsemble(Recentred(m0, 0), []);
         var members = carrier.Members.Select((m, e) => Recentred(m, Normal(new Random(Seeds.Derive(seed, carrierCore.CoreId + (below ? "/scale-below" : "/scale-above"), e))))).ToArray();
         return new MappingEnsemble(DtwCoreAligner.PointwiseMedian(carrierCore, unit, members, double.NegativeInfinity, double.PositiveInfinity), members);
+    }
+
+    /// <summary>
+    /// The ensembles of <paramref name="cores"/> (prepared signals and ensemble, in that order back)
+    /// with one more perturbation of the scale past the reference's end (<paramref name="refBottom"/>
+    /// when <paramref name="below"/>, else <paramref name="refTop"/>) where any core's band is
+    /// narrower there than a straight continuation is measured to err: the continuation's error at
+    /// composite distance d is that of every core's median mapping over the overlap continued d from
+    /// any of its samples at its long-run ratio (<see cref="ExtrapolationError"/>, pooled over the
+    /// cores reaching past the end: the reference's column past its end is one more record of that
+    /// kind, and the pooled departure of one core's line carries both records' wiggles, at most
+    /// what the consensus of several lines errs by). At each distance the perturbation's standard
+    /// deviation is what that error exceeds, in quadrature, the narrowest band there (half its 95 %
+    /// width over 1.96), held from there outwards; member e of every core takes one normal draw
+    /// (seeded from <paramref name="seed"/>, the end and e) times it as a shift of composite depth, so
+    /// member e stays consistent across cores. The medians are kept: the draws are about zero, and
+    /// their sampled median would move a median by noise.
+    /// </summary>
+    public static IReadOnlyList<MappingEnsemble> WidenToMeasuredError(IReadOnlyList<(PreparedSignals Core, MappingEnsemble Mapping)> cores,
+        double refTop, double refBottom, bool below, double step, int seed)
+    {
+        double end = below ? refBottom : refTop, sign = below ? 1 : -1;
+        var past = cores.Where(c => Reaches(c.Core, c.Mapping.Median, end, below)).ToList();
+        var records = past.Select(c => Inside(c.Core, c.Mapping.Median, refTop, refBottom));
+        var unchanged = cores.Select(c => c.Mapping).ToList();
+        if (ExtrapolationError.Measure(records, step) is not { } error) return unchanged;
+        double far = past.Max(c => sign * (c.Mapping.Median.ToCompositeValue(below ? c.Core.DepthAt(c.Core.Count - 1) : c.Core.DepthAt(0)) - end));
+        int count = (int)Math.Ceiling(far / step) + 1;
+        var narrowest = Enumerable.Repeat(double.PositiveInfinity, count).ToArray();
+        foreach (var (core, mapping) in past)
+        {
+            if (mapping.Members.Count == 0) continue;
+            var values = new double[mapping.Members.Count];
+            for (int j = 0; j < count; j++)
+            {
+                double x = mapping.Median.ToCoreValue(end + sign * j * step);
+                if (x < core.DepthAt(0) || x > core.DepthAt(core.Count - 1)) continue;
+                for (int e = 0; e < values.Length; e++) values[e] = mapping.Members[e].ToCompositeValue(x);
+                Array.Sort(values);
+                double sd = (Statistics.PercentileSorted(values, 97.5) - Statistics.PercentileSorted(values, 2.5)) / (2 * Z975);
+                narrowest[j] = Math.Min(narrowest[j], sd);
+            }
+        }
+        var extra = new double[count];
+        for (int j = 1; j < count; j++)
+        {
+            double measured = error.At(j * step), band = double.IsPositiveInfinity(narrowest[j]) ? measured : narrowest[j];
+            extra[j] = Math.Max(extra[j - 1], Math.Sqrt(Math.Max(0, measured * measured - band * band)));
+        }
+        if (extra[^1] <= 0) return unchanged;
+        double ExtraAt(double distance)
+        {
+            double r = Math.Min(distance / step, count - 1);
+            int i = Math.Min((int)Math.Floor(r), count - 2);
+            return extra[i] + (r - i) * (extra[i + 1] - extra[i]);
+        }
+        string name = below ? "/scale-error-below" : "/scale-error-above";
+        var draws = new double[cores.Max(c => c.Mapping.Members.Count)];
+        for (int e = 0; e < draws.Length; e++) draws[e] = Normal(new Random(Seeds.Derive(seed, name, e)));
+        bool Past(double y) => sign * (y - end) > 0;
+        return [.. cores.Select(c => c.Mapping.Members.Count == 0 || !Reaches(c.Core, c.Mapping.Median, end, below) ? c.Mapping
+            : new MappingEnsemble(c.Mapping.Median, [.. c.Mapping.Members.Select((m, e) => Shifted(c.Core, m, draws[e]))]))];
+
+        DepthMapping Shifted(PreparedSignals core, DepthMapping m, double draw)
+        {
+            var kx = m.CoreKnots.Concat(Enumerable.Range(0, core.Count).Select(core.DepthAt).Where(x => Past(m.ToCompositeValue(x)))).Distinct().Order().ToList();
+            var cx = new List<double>(kx.Count + 1);
+            var cy = new List<double>(kx.Count + 1);
+            foreach (double x in kx)
+            {
+                double y = m.ToCompositeValue(x);
+                // A knot where the member crosses the end keeps the part inside the reference as it was.
+                if (cx.Count > 0 && Past(y) != Past(m.ToCompositeValue(cx[^1])))
+                {
+                    double at = m.ToCoreValue(end);
+                    if (at > cx[^1] && at < x) { cx.Add(at); cy.Add(end); }
+                }
+                cx.Add(x);
+                cy.Add(Past(y) ? y + sign * draw * ExtraAt(sign * (y - end)) : y);
+            }
+            for (int k = 1; k < cy.Count; k++) cy[k] = Math.Max(cy[k], cy[k - 1]);
+            return new DepthMapping(m.CoreId, m.Unit, [.. cx], [.. cy]);
+        }
+    }
+
+    /// <summary>The 97.5th percentile of the standard normal distribution.</summary>
+    private const double Z975 = 1.959964;
+
+    private static bool Reaches(PreparedSignals core, DepthMapping median, double end, bool below) =>
+        below ? median.ToCompositeValue(core.DepthAt(core.Count - 1)) > end : median.ToCompositeValue(core.DepthAt(0)) < end;
+
+    /// <summary>A core's samples its median maps inside the reference and the composite depths it gives them.</summary>
+    private static (double[] CoreDepths, double[] CompositeDepths) Inside(PreparedSignals core, DepthMapping median, double refTop, double refBottom)
+    {
+        var x = new List<double>();
+        var y = new List<double>();
+        for (int i = 0; i < core.Count; i++)
+        {
+            double v = median.ToCompositeValue(core.DepthAt(i));
+            if (v < refTop || v > refBottom) continue;
+            x.Add(core.DepthAt(i));
+            y.Add(v);
+        }
+        return ([.. x], [.. y]);
     }
 
     /// <summary>The scale past <paramref name="end"/> (the reference's base when <paramref name="below"/>, else its top) as <paramref name="carrier"/>'s members place it; null without members.</summary>

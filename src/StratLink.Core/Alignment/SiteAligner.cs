@@ -62,6 +62,7 @@ internal static class SiteAligner
             Apply(members, mappings, diagnostics, last, rounds);
             ContinueCarriers(reference, members, mappings, carriers, unit, options.Seed);
             ShareScalePastReference(reference, members, mappings, carriers, unit);
+            WidenScalePastReference(reference, members, mappings, carriers, options.Seed);
         }
         foreach (var n in last) findings.AddRange(n.Findings);
         return (rounds, settled);
@@ -173,6 +174,18 @@ internal static class SiteAligner
                 foreach (var scale in mine) moved[e] = scale.Apply(moved[e], e);
             }
             mappings[c.CoreId] = new MappingEnsemble(DtwCoreAligner.PointwiseMedian(c.Signals, unit, moved, double.NegativeInfinity, double.PositiveInfinity), moved);
+        }
+    }
+
+    /// <summary>At each end a core carries the scale past, every core's members given the scale's error a straight continuation is measured to have where their bands are narrower (<see cref="ScaleContinuation.WidenToMeasuredError"/>).</summary>
+    private static void WidenScalePastReference(PreparedSignals reference, IReadOnlyList<Member> members, Dictionary<string, MappingEnsemble> mappings, Carriers carriers, int seed)
+    {
+        double refTop = reference.DepthAt(0), refBottom = reference.DepthAt(reference.Count - 1);
+        foreach (var (carrier, below) in (ReadOnlySpan<(string?, bool)>)[(carriers.Top, false), (carriers.Bottom, true)])
+        {
+            if (carrier is null) continue;
+            var widened = ScaleContinuation.WidenToMeasuredError([.. members.Select(m => (m.Signals, mappings[m.CoreId]))], refTop, refBottom, below, reference.Step, seed);
+            for (int k = 0; k < members.Count; k++) mappings[members[k].CoreId] = widened[k];
         }
     }
 
