@@ -64,6 +64,8 @@ public class DemoSiteAgeTests
         //    allows for one fixed site whose samples are strongly correlated along depth);
         //  - in every core the median 95 % width is narrower than with the coring year and the tephra ages alone
         //    (the varve counts add annual resolution: common practice, Zolitschka et al. 2015, QSR 117:1-41, from memory);
+        //  - no age, of a core or of the composite, is younger than the cores' coring year (2019 CE: -69 cal BP, cal BP
+        //    counting from 1950 CE, Stuiver and Polach 1977): nothing is deposited after coring;
         //  - no control is excluded, and none is flagged as contradicted. (Outlier shares are printed: with seed 3 the
         //    alignment puts the freeze core's lowest 10 cm about 18 cm too deep, 3 sigma of its ensemble, so its
         //    count disagrees with the reference count there and is down-weighted as an outlier, as it should be.)
@@ -73,6 +75,9 @@ public class DemoSiteAgeTests
         var (all, fits) = Model(site, site.Project, alignment);
         var tephraOnly = site.Project with { Ages = [.. site.Project.Ages.Where(a => a is CalendarAgeControl)] };
         var (_, tephraFits) = Model(site, tephraOnly, alignment);
+        Assert.All(site.Project.Cores, c => Assert.Equal(2019, c.CoringYear));
+        foreach (var series in all.Cores.Values.Append(all.Composite!))
+            Assert.True(series.AgeLoBP.Min() >= -69, $"seed {seed} {series.Id}: youngest age {series.AgeLoBP.Min():0.0} cal BP");
         Assert.All(all.Controls, c => Assert.True(c.Used && !c.Excluded, c.Id));
         Assert.DoesNotContain(all.Controls, c => c.Flagged);
         foreach (var c in all.Controls)
