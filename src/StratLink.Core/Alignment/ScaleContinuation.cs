@@ -153,7 +153,7 @@ internal sealed class ScaleContinuation
                 if (x < core.DepthAt(0) || x > core.DepthAt(core.Count - 1)) continue;
                 for (int e = 0; e < values.Length; e++) values[e] = mapping.Members[e].ToCompositeValue(x);
                 Array.Sort(values);
-                double sd = (Statistics.PercentileSorted(values, 97.5) - Statistics.PercentileSorted(values, 2.5)) / (2 * Z975);
+                double sd = Statistics.SigmaOfRange95(Statistics.PercentileSorted(values, 2.5), Statistics.PercentileSorted(values, 97.5));
                 narrowest[j] = Math.Min(narrowest[j], sd);
             }
         }
@@ -198,9 +198,6 @@ internal sealed class ScaleContinuation
             return new DepthMapping(m.CoreId, m.Unit, [.. cx], [.. cy]);
         }
     }
-
-    /// <summary>The 97.5th percentile of the standard normal distribution.</summary>
-    private const double Z975 = 1.959964;
 
     private static bool Reaches(PreparedSignals core, DepthMapping median, double end, bool below) =>
         below ? median.ToCompositeValue(core.DepthAt(core.Count - 1)) > end : median.ToCompositeValue(core.DepthAt(0)) < end;

@@ -228,7 +228,7 @@ internal static class LoopClosureCheck
                     if (members is not null)
                     {
                         var (pLo, pHi) = members.CompositeRange(z);
-                        pairBand = Math.Max(siteBand, (pHi - pLo) / (2 * 1.96));
+                        pairBand = Math.Max(siteBand, Statistics.SigmaOfRange95(pLo, pHi));
                     }
                     double band = Math.Sqrt(siteBand * siteBand + pairBand * pairBand);
                     double excess = mismatch / Math.Sqrt(sigma * sigma + band * band);
@@ -285,7 +285,7 @@ internal static class LoopClosureCheck
     {
         var (aLo, aHi) = a.CompositeRange(z);
         var (cLo, cHi) = c.CompositeRange(inC);
-        double sa = (aHi - aLo) / (2 * 1.96), sc = (cHi - cLo) / (2 * 1.96);
+        double sa = Statistics.SigmaOfRange95(aLo, aHi), sc = Statistics.SigmaOfRange95(cLo, cHi);
         double rate = c.Median.RateRatioAt(inC);
         return rate > 0 ? Math.Sqrt(sa * sa + sc * sc) / rate : 0;
     }

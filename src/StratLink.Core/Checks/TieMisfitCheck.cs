@@ -151,7 +151,7 @@ internal static class TieMisfitCheck
                 double median = Statistics.PercentileSorted(members, 50);
                 if (Math.Abs(median - given) < Math.Abs(placed - given)) placed = median;
                 range = (Statistics.PercentileSorted(members, 2.5), Statistics.PercentileSorted(members, 97.5));
-                double spread = (range.Value.Hi - range.Value.Lo) / (2 * 1.96);
+                double spread = Statistics.SigmaOfRange95(range.Value.Lo, range.Value.Hi);
                 sigma = Math.Sqrt(sigma * sigma + spread * spread);
             }
             double distance = Math.Abs(placed - given);
