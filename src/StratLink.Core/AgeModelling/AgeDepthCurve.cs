@@ -102,12 +102,27 @@ public sealed class AgeDepthCurve
     internal double AgeAtAscending(double compositeDepth, ref int segment, out double yearsPerUnit)
     {
         if (_spline is not null) return AgeAt(compositeDepth, out yearsPerUnit);
+        double age = UnboundedAgeAtAscending(compositeDepth, ref segment);
+        yearsPerUnit = (_age[segment + 1] - _age[segment]) / (_z[segment + 1] - _z[segment]);
+        return Math.Max(age, _youngestBP);
+    }
+
+    /// <summary>An age read by <see cref="UnboundedAgeAtAscending"/> held at the coring-year floor, as every other read is.</summary>
+    internal double Floored(double ageBP) => Math.Max(ageBP, _youngestBP);
+
+    /// <summary>
+    /// The age <see cref="AgeAtAscending"/> reads before the coring-year floor, so a rate read across the sediment
+    /// surface keeps the slope the member has next to it.
+    /// </summary>
+    internal double UnboundedAgeAtAscending(double compositeDepth, ref int segment)
+    {
+        if (_spline is not null && compositeDepth > _z[0] && compositeDepth < _z[^1]) return _spline.Interpolate(compositeDepth);
         int i = segment;
         if (i < 0 || compositeDepth < _z[i]) i = Segment(compositeDepth);
         else while (i < _z.Length - 2 && _z[i + 1] <= compositeDepth) i++;
         segment = i;
-        yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
-        return Math.Max(_age[i] + yearsPerUnit * (compositeDepth - _z[i]), _youngestBP);
+        double yearsPerUnit = (_age[i + 1] - _age[i]) / (_z[i + 1] - _z[i]);
+        return _age[i] + yearsPerUnit * (compositeDepth - _z[i]);
     }
 
     private int Segment(double z)

@@ -146,6 +146,7 @@ public static class AgeModeller
 
         // Ages of every core's samples, then of the composite grid.
         var cores = new Dictionary<string, AgeSeries>();
+        double rateWindow = p.AgeModel.RateWindow ?? AgeModelSettings.DefaultRateWindowSteps * Math.Max(step, AlignmentGridStep(project, alignment));
         double gridTop = double.PositiveInfinity, gridBottom = double.NegativeInfinity;
         int coreIndex = 0;
         foreach (var core in p.Cores)
@@ -160,7 +161,7 @@ public static class AgeModeller
             }
             var depths = DepthsIn(table, unit);
             var series = Summarise(core.Id, false, unit, depths, ensemble, curves, source, scales.Of(core.Id), scales.Composite,
-                core.CoringYear is int year ? CalendarAge.FromYearCE(year).YearsBP : youngestBP, options);
+                core.CoringYear is int year ? CalendarAge.FromYearCE(year).YearsBP : youngestBP, rateWindow, options);
             cores[core.Id] = series;
             NoteExtrapolation(series, findings);
             gridTop = Math.Min(gridTop, ensemble.Median.ToCompositeValue(depths[0]));
@@ -174,7 +175,7 @@ public static class AgeModeller
         }
         int first = (int)Math.Floor(gridTop / step), last = (int)Math.Ceiling(gridBottom / step);
         var grid = Enumerable.Range(first, last - first + 1).Select(k => k * step).ToArray();
-        var composite = Summarise("composite", true, unit, grid, null, curves, source, EventFreeScale.None, scales.Composite, youngestBP, options);
+        var composite = Summarise("composite", true, unit, grid, null, curves, source, EventFreeScale.None, scales.Composite, youngestBP, rateWindow, options);
 
         return new AgeModelResult(seed, interpolation, unit, curves, summaries, cores, composite, forced, findings) { CompositeEvents = scales.Composite };
     }
@@ -967,16 +968,25 @@ public static class AgeModeller
         _ => [],
     };
 
+    /// <summary>The grid step a dtw alignment resolved (0 for other methods or without the reference's table).</summary>
+    private static double AlignmentGridStep(LoadedProject project, AlignmentResult alignment) =>
+        alignment.Method == AlignmentMethods.Dtw && project.Tables.TryGetValue(alignment.ReferenceCore, out var table)
+            && CoreAligner.GridStep(project.Project.Alignment, table) is double g && g > 0 ? g : 0;
+
     /// <summary>
     /// Median and 2.5/97.5 percentiles over the members of age and accumulation rate at each depth; for a core,
-    /// depth d goes through mapping member i before curve i reads its age (and the rate through both slopes).
+    /// depth d goes through mapping member i before curve i reads its age. A member's rate is the secant of its age
+    /// between the samples that bound <paramref name="rateWindow"/> about the depth (at least the neighbouring ones),
+    /// per event-free depth of the series' own scale: a dtw member's slope at one depth is 0 or many times the ratio.
     /// </summary>
     private static AgeSeries Summarise(string id, bool isComposite, DepthUnit unit, double[] depths, MappingEnsemble? ensemble, AgeDepthCurve[] curves,
-        int[] source, EventFreeScale coreEvents, EventFreeScale compositeEvents, double youngestBP, ParallelOptions options)
+        int[] source, EventFreeScale coreEvents, EventFreeScale compositeEvents, double youngestBP, double rateWindow, ParallelOptions options)
     {
         int n = depths.Length, members = curves.Length;
         // A sample inside one of the core's event layers takes the age of the layer's base.
         var dated = depths.Select(coreEvents.BaseOf).ToArray();
+        var eventFree = isComposite ? depths.Select(compositeEvents.ToEventFree).ToArray() : depths.Select(coreEvents.ToEventFree).ToArray();
+        var (windowTop, windowBase) = RateWindows(dated, rateWindow);
 
         // Iterations cycle through the alignment members: map every sample through each distinct member once.
         var memberOf = new int[members];
@@ -1018,23 +1028,33 @@ public static class AgeModeller
         var rHi = new double[n];
         var extrapolated = new bool[n];
         int blocks = (n + SampleBlock - 1) / SampleBlock;
-        Parallel.For(0, blocks, options, () => (Ages: new double[SampleBlock * members], Times: new double[SampleBlock * members], Column: new double[members]), (blk, _, buf) =>
+        // A block reads the ages of the samples its windows reach beyond it.
+        int reach = Enumerable.Range(0, blocks).Select(b => windowBase[Math.Min(n, (b + 1) * SampleBlock) - 1] - windowTop[b * SampleBlock] + 1).DefaultIfEmpty(0).Max();
+        Parallel.For(0, blocks, options, () => (Ages: new double[SampleBlock * members], Times: new double[SampleBlock * members], Column: new double[members], Unbounded: new double[reach]), (blk, _, buf) =>
         {
             int from = blk * SampleBlock, len = Math.Min(SampleBlock, n - from);
+            int first = windowTop[from], last = windowBase[from + len - 1];
             var outside = new int[len];
             for (int i = 0; i < members; i++)
             {
                 var curve = curves[i];
-                double[]? zs = ensemble is null ? null : composite[memberOf[i]];
-                double[]? rs = ensemble is null ? null : ratio[memberOf[i]];
+                double[] zs = ensemble is null ? gridModelDepths! : composite[memberOf[i]];
                 int segment = -1;
+                for (int j = first; j <= last; j++) buf.Unbounded[j - first] = curve.UnboundedAgeAtAscending(zs[j], ref segment);
                 for (int s = 0; s < len; s++)
                 {
-                    double z = zs is null ? gridModelDepths![from + s] : zs[from + s];
+                    int at = from + s, top = windowTop[at], bottom = windowBase[at];
                     // A core taken before the site's last coring is no younger than its own coring year.
-                    buf.Ages[s * members + i] = Math.Max(youngestBP, curve.AgeAtAscending(z, ref segment, out double yearsPerUnit));
-                    buf.Times[s * members + i] = rs is null ? yearsPerUnit : yearsPerUnit * rs[from + s];
-                    if (curve.IsExtrapolated(z)) outside[s]++;
+                    buf.Ages[s * members + i] = Math.Max(youngestBP, curve.Floored(buf.Unbounded[at - first]));
+                    double span = eventFree[bottom] - eventFree[top];
+                    if (span > 0)
+                        buf.Times[s * members + i] = (buf.Unbounded[bottom - first] - buf.Unbounded[top - first]) / span;
+                    else
+                    {
+                        curve.AgeAt(zs[at], out double yearsPerUnit);
+                        buf.Times[s * members + i] = ensemble is null ? yearsPerUnit : yearsPerUnit * ratio[memberOf[i]][at];
+                    }
+                    if (curve.IsExtrapolated(zs[at])) outside[s]++;
                 }
             }
             for (int s = 0; s < len; s++)
@@ -1049,8 +1069,27 @@ public static class AgeModeller
             }
             return buf;
         }, _ => { });
-        var eventFree = isComposite ? depths.Select(compositeEvents.ToEventFree).ToArray() : depths.Select(coreEvents.ToEventFree).ToArray();
         return new AgeSeries(id, isComposite, unit, depths, med, lo, hi, rMed, rLo, rHi, extrapolated) { EventFreeDepths = eventFree };
+    }
+
+    /// <summary>
+    /// Per sample, the first and last sample whose (ascending) depth lies within half of <paramref name="window"/> of
+    /// its own, widened to its neighbours where the window holds no other sample.
+    /// </summary>
+    private static (int[] Top, int[] Base) RateWindows(double[] ascendingDepths, double window)
+    {
+        int n = ascendingDepths.Length;
+        var top = new int[n];
+        var bottom = new int[n];
+        for (int s = 0, a = 0, b = 0; s < n; s++)
+        {
+            while (ascendingDepths[a] < ascendingDepths[s] - window / 2) a++;
+            if (b < s) b = s;
+            while (b + 1 < n && ascendingDepths[b + 1] <= ascendingDepths[s] + window / 2) b++;
+            top[s] = Math.Min(a, Math.Max(0, s - 1));
+            bottom[s] = Math.Max(b, Math.Min(n - 1, s + 1));
+        }
+        return (top, bottom);
     }
 
     /// <summary>

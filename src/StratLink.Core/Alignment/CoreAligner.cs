@@ -16,6 +16,9 @@ namespace StratLink.Alignment;
 /// </summary>
 public static class CoreAligner
 {
+    /// <summary>The dtw grid step: <c>alignment.step</c>, or the reference core's median sample spacing (NaN with fewer than two samples).</summary>
+    public static double GridStep(AlignmentSettings settings, CoreTable reference) => settings.Step ?? SignalPreparation.MedianSpacing(reference.Depths);
+
     public static AlignmentResult Align(LoadedProject project, IProgress<WorkProgress>? progress, CancellationToken ct)
     {
         var p = project.Project;
@@ -37,7 +40,7 @@ public static class CoreAligner
         {
             if (!project.Tables.TryGetValue(reference, out var refTable))
                 throw new InvalidOperationException($"The table of the reference core {reference} could not be read; alignment by dtw needs it.");
-            step = settings.Step ?? SignalPreparation.MedianSpacing(refTable.Depths);
+            step = GridStep(settings, refTable);
             if (!(step > 0)) throw new InvalidOperationException($"Reference core {reference} has too few samples to set a grid step; give alignment.step.");
             var refSpec = p.FindCore(reference)!;
             refSignals = StageTimes.Measure("prepare", () => SignalPreparation.Prepare(refTable, Unusable(refSpec), CandidateSignals(refSpec, refTable, settings), step, settings));

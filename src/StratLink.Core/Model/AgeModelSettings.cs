@@ -19,6 +19,18 @@ public sealed record AgeModelSettings
     public double RateVariability { get; init; } = DefaultRateVariability;
 
     /// <summary>
+    /// Depth window (project unit) over which each member's accumulation rate is read, as the secant of its age;
+    /// null: <see cref="DefaultRateWindowSteps"/> steps of the alignment grid or the composite, whichever is coarser.
+    /// </summary>
+    public double? RateWindow { get; init; }
+
+    /// <summary>
+    /// A dtw member maps each core row to a whole reference column, so its slope at one depth is 0 or many
+    /// times the true ratio; over ten steps the column's rounding moves the rate by about 10 % (our own choice).
+    /// </summary>
+    public const int DefaultRateWindowSteps = 10;
+
+    /// <summary>
     /// Estimated here from the published orbitally tuned age models of ODP Sites 925 and 927 (Bickert, Curry and
     /// Wefer 1997, Proc. ODP Sci. Results 154:239-254; 373 and 620 tie points): taking every 4th tie point as a
     /// control (2-4 m, about 90-170 kyr apart), the ages of the skipped ties depart from straight lines between the

@@ -17,12 +17,15 @@ internal static class AgeModelSection
             Seed = m.Int("seed") ?? s.Seed,
             Interpolation = m.String("interpolation") ?? s.Interpolation,
             RateVariability = m.Double("rate_variability") ?? s.RateVariability,
+            RateWindow = m.Double("rate_window"),
         };
         if (s.Iterations < 1) m.Error("iterations", "at least one iteration is needed");
         if (!Interpolations.Contains(s.Interpolation))
             m.Error("interpolation", $"unknown interpolation '{s.Interpolation}' ({string.Join(" or ", Interpolations)})");
         if (!(s.RateVariability >= 0) || double.IsInfinity(s.RateVariability))
             m.Error("rate_variability", "must be a finite number, 0 or more (0: straight lines between controls)");
+        if (s.RateWindow is double w && !(w > 0 && !double.IsInfinity(w)))
+            m.Error("rate_window", "must be a finite depth greater than 0 (the window over which accumulation rates are read)");
         m.Finish();
         return s;
     }
@@ -36,6 +39,7 @@ internal static class AgeModelSection
         };
         if (s.Interpolation != "linear") n.Add("interpolation", YamlOut.Str(s.Interpolation));
         if (s.RateVariability != AgeModelSettings.DefaultRateVariability) n.Add("rate_variability", YamlOut.Num(s.RateVariability));
+        if (s.RateWindow is double window) n.Add("rate_window", YamlOut.Num(window));
         return n;
     }
 }

@@ -85,6 +85,42 @@ public class AgeModellerTests
     }
 
     [Fact]
+    public void RateThroughStaircaseMembersIsReadOverTheWindow()
+    {
+        // A dtw member maps core rows onto whole reference columns: here every 1 cm of B is a flat half (ratio 0)
+        // and a steep half (ratio 2), mean ratio 1, the phase shifted from member to member. Exact controls on a
+        // 10 yr/cm line, so B accumulates at 0.1 cm/yr (rate = depth / time, common practice). Read at one depth the
+        // members' slopes give an infinite upper rate; over the window (10 composite steps of 1 cm) the rounding of
+        // each end to a column moves the rate by at most one column in ten.
+        var project = Project([Calendar("a", "R", 0, Truth(0), 0), Calendar("b", "R", 200, Truth(200), 0)],
+            new Dictionary<string, double[]> { ["R"] = Range(0, 200, 1), ["B"] = Range(20.25, 180, 0.5) }, iterations: 40, rateVariability: 0);
+        var members = Enumerable.Range(0, 8).Select(k => Staircase("B", k / 8.0)).ToArray();
+        var result = Run(project, Aligned(Affine("R", 1, 0), new StratLink.Alignment.MappingEnsemble(members[0], members)));
+        var b = result.Cores["B"];
+        for (int i = 0; i < b.Count; i++)
+        {
+            Assert.InRange(b.RateLo[i], 0.09, 0.112);
+            Assert.InRange(b.RateHi[i], 0.09, 0.112);
+        }
+        Assert.All(result.Cores["R"].RateMedian, r => Assert.Equal(0.1, r, 1e-9));
+    }
+
+    /// <summary>Knots of a staircase with period 1 cm: flat over the first half of each period, then rising 1 cm.</summary>
+    private static StratLink.Alignment.DepthMapping Staircase(string core, double phase)
+    {
+        var x = new List<double>();
+        var y = new List<double>();
+        for (int c = 0; c <= 200; c++)
+        {
+            x.Add(c + phase);
+            y.Add(c);
+            x.Add(c + phase + 0.5);
+            y.Add(c);
+        }
+        return new StratLink.Alignment.DepthMapping(core, Unit, [.. x], [.. y]);
+    }
+
+    [Fact]
     public void ExtrapolationIsFlaggedAndUsesEndSegmentRates()
     {
         // Linear extrapolation with the nearest segment's rate (methods section 3, common practice).

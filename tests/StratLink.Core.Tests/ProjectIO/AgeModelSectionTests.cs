@@ -3,7 +3,7 @@ using StratLink.ProjectIO;
 
 namespace StratLink.Tests.ProjectIO;
 
-/// <summary>The optional <c>age_model.rate_variability</c> key: default, round trip, bad values.</summary>
+/// <summary>The optional <c>age_model.rate_variability</c> and <c>age_model.rate_window</c> keys: default, round trip, bad values.</summary>
 public sealed class AgeModelSectionTests
 {
     private const string Head = "format: stratlink-project/1\ndepth_unit: cm\ncores:\n  - id: A\n    table: a.csv\nage_model:\n  iterations: 100\n";
@@ -36,5 +36,31 @@ public sealed class AgeModelSectionTests
         var f = Assert.Single(problems, f => f.Code == ProjectCodes.InvalidValue);
         Assert.Equal(8, f.Line);
         Assert.Contains("rate_variability", f.Field);
+    }
+
+    [Fact]
+    public void Rate_window_is_absent_by_default_and_round_trips()
+    {
+        var plain = ProjectReader.Parse(Head, "p.yaml");
+        Assert.Null(plain.Project!.AgeModel.RateWindow);
+        Assert.DoesNotContain("rate_window", ProjectWriter.ToYaml(plain.Project));
+
+        var doc = ProjectReader.Parse(Head + "  rate_window: 2,5\n", "p.yaml");
+        Assert.Empty(doc.Problems);
+        Assert.Equal(2.5, doc.Project!.AgeModel.RateWindow);
+        var again = ProjectReader.Parse(ProjectWriter.ToYaml(doc.Project), "p.yaml");
+        Assert.Equal(2.5, again.Project!.AgeModel.RateWindow);
+    }
+
+    [Theory]
+    [InlineData("0")]
+    [InlineData("-1")]
+    [InlineData(".inf")]
+    public void Rate_window_that_holds_no_depth_names_its_line(string value)
+    {
+        var problems = ProjectReader.Parse(Head + $"  rate_window: {value}\n", "p.yaml").Problems;
+        var f = Assert.Single(problems, f => f.Code == ProjectCodes.InvalidValue);
+        Assert.Equal(8, f.Line);
+        Assert.Contains("rate_window", f.Field);
     }
 }
