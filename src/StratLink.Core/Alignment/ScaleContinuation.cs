@@ -106,9 +106,13 @@ internal sealed class ScaleContinuation
         {
             var kx = m.CoreKnots.Concat(m0.CoreKnots).Concat(xs).Where(x => x >= top0 && x <= bottom0).Distinct().Order().ToArray();
             var ky = new double[kx.Length];
+            var past = new bool[kx.Length];
             for (int k = 0; k < kx.Length; k++)
-                ky[k] = Past(kx[k]) ? m.ToCompositeValue(kx[k]) - m0.ToCompositeValue(kx[k]) + consensus.ToCompositeValue(kx[k]) + draw * SpreadAt(kx[k]) : m.ToCompositeValue(kx[k]);
-            for (int k = 1; k < ky.Length; k++) ky[k] = Math.Max(ky[k], ky[k - 1]);
+            {
+                past[k] = Past(kx[k]);
+                ky[k] = past[k] ? m.ToCompositeValue(kx[k]) - m0.ToCompositeValue(kx[k]) + consensus.ToCompositeValue(kx[k]) + draw * SpreadAt(kx[k]) : m.ToCompositeValue(kx[k]);
+            }
+            RestoreOrder(kx, ky, past, below, m);
             return new DepthMapping(m.CoreId, m.Unit, kx, ky);
         }
         if (carrier.Members.Count == 0) return new MappingEnsemble(Recentred(m0, 0), []);
@@ -182,6 +186,7 @@ internal sealed class ScaleContinuation
             var kx = m.CoreKnots.Concat(Enumerable.Range(0, core.Count).Select(core.DepthAt).Where(x => Past(m.ToCompositeValue(x)))).Distinct().Order().ToList();
             var cx = new List<double>(kx.Count + 1);
             var cy = new List<double>(kx.Count + 1);
+            var past = new List<bool>(kx.Count + 1);
             foreach (double x in kx)
             {
                 double y = m.ToCompositeValue(x);
@@ -189,13 +194,15 @@ internal sealed class ScaleContinuation
                 if (cx.Count > 0 && Past(y) != Past(m.ToCompositeValue(cx[^1])))
                 {
                     double at = m.ToCoreValue(end);
-                    if (at > cx[^1] && at < x) { cx.Add(at); cy.Add(end); }
+                    if (at > cx[^1] && at < x) { cx.Add(at); cy.Add(end); past.Add(false); }
                 }
                 cx.Add(x);
                 cy.Add(Past(y) ? y + sign * draw * ExtraAt(sign * (y - end)) : y);
+                past.Add(Past(y));
             }
-            for (int k = 1; k < cy.Count; k++) cy[k] = Math.Max(cy[k], cy[k - 1]);
-            return new DepthMapping(m.CoreId, m.Unit, [.. cx], [.. cy]);
+            double[] sx = [.. cx], sy = [.. cy];
+            RestoreOrder(sx, sy, [.. past], below, m);
+            return new DepthMapping(m.CoreId, m.Unit, sx, sy);
         }
     }
 
@@ -244,19 +251,22 @@ internal sealed class ScaleContinuation
         if (!Past(y[0]) && !Past(y[^1])) return member;
         var cx = new List<double>(x.Count + 1);
         var cy = new List<double>(x.Count + 1);
+        var past = new List<bool>(x.Count + 1);
         for (int k = 0; k < x.Count; k++)
         {
             // A knot where the member crosses the end keeps the part inside the reference as it was.
             if (k > 0 && Past(y[k]) != Past(y[k - 1]) && y[k] != y[k - 1])
             {
                 double at = x[k - 1] + (x[k] - x[k - 1]) * (_end - y[k - 1]) / (y[k] - y[k - 1]);
-                if (at > x[k - 1] && at < x[k]) { cx.Add(at); cy.Add(_end); }
+                if (at > x[k - 1] && at < x[k]) { cx.Add(at); cy.Add(_end); past.Add(false); }
             }
             cx.Add(x[k]);
             cy.Add(Perturbed(y[k], e));
+            past.Add(Past(y[k]));
         }
-        for (int k = 1; k < cy.Count; k++) cy[k] = Math.Max(cy[k], cy[k - 1]);
-        return new DepthMapping(member.CoreId, member.Unit, [.. cx], [.. cy]);
+        double[] sx = [.. cx], sy = [.. cy];
+        RestoreOrder(sx, sy, [.. past], _below, member);
+        return new DepthMapping(member.CoreId, member.Unit, sx, sy);
     }
 
     /// <summary>
@@ -273,6 +283,42 @@ internal sealed class ScaleContinuation
         double sum = mean * mean;
         foreach (double d in offsets) sum += (d - mean) * (d - mean);
         return Math.Sqrt(sum / (cores - 1) * (1 + 1.0 / cores));
+    }
+
+    /// <summary>
+    /// The knots <paramref name="past"/> the end (after the part inside when <paramref name="below"/>, else before it;
+    /// the part inside is kept) made to rise from the last knot inside by at least a quarter of
+    /// <paramref name="member"/>'s overall rate ratio, the least-squares such fit (pool-adjacent-violators,
+    /// Ayer et al. 1955, on y less the floor's line). A perturbation that falls faster than the mapping rises
+    /// would otherwise be cut flat, centimetres of core laid on one composite depth, deposited in no time; a
+    /// quarter is the largest rate jump the checks accept by default (<c>checks.rate_jump_factor</c>).
+    /// </summary>
+    private static void RestoreOrder(double[] kx, double[] ky, bool[] past, bool below, DepthMapping member)
+    {
+        int first = Array.IndexOf(past, true), last = Array.LastIndexOf(past, true);
+        if (first < 0) return;
+        var cx = member.CoreKnots;
+        var cy = member.CompositeKnots;
+        double floor = cx[^1] > cx[0] ? (cy[^1] - cy[0]) / (cx[^1] - cx[0]) / 4 : 0;
+        int anchor = below ? first - 1 : last + 1;
+        int from = below ? Math.Max(anchor, 0) : first, to = below ? last : Math.Min(anchor, kx.Length - 1);
+        int n = to - from + 1;
+        var v = new double[n];
+        var w = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            v[k] = ky[from + k] - floor * kx[from + k];
+            w[k] = 1;
+        }
+        bool anchored = anchor >= 0 && anchor < kx.Length;
+        int a = anchor - from;
+        if (anchored) w[a] = 1e12;
+        AgeModelling.StratigraphicOrder.Pool([.. Enumerable.Range(0, n)], v, w);
+        for (int k = 0; k < n; k++)
+            if (!anchored || k != a) ky[from + k] = v[k] + floor * kx[from + k];
+        // Adding the floor's line back may round a knot below its neighbour.
+        if (below) for (int k = Math.Max(from, 1); k <= to; k++) ky[k] = Math.Max(ky[k], ky[k - 1]);
+        else for (int k = Math.Min(to, kx.Length - 2); k >= from; k--) ky[k] = Math.Min(ky[k], ky[k + 1]);
     }
 
     private static double Normal(Random rng)

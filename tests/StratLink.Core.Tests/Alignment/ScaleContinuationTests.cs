@@ -74,6 +74,25 @@ public class ScaleContinuationTests
         }
     }
 
+    [Fact]
+    public void A_member_past_the_base_keeps_rising_where_the_scale_s_perturbation_falls()
+    {
+        // Carrier member 0 lays 150-200 cm of C on one composite depth (a dtw staircase past the base): carried
+        // over, A's 150-180 cm would be deposited in no time. Past the base each knot rises by at least a quarter of
+        // the member's overall ratio (1: the checks' default largest rate jump, 4), least squares otherwise.
+        var carrier = new MappingEnsemble(Map("C", (0, 0), (300, 300)), [Map("C", (0, 0), (150, 150), (200, 150), (300, 300))]);
+        var scale = ScaleContinuation.Of(carrier, 100, below: true)!;
+        var moved = scale.Apply(Map("A", [.. Enumerable.Range(0, 31).Select(k => (10.0 * k, 10.0 * k))]), 0);
+        // Tolerance: arithmetic only. Inside the reference nothing moves.
+        Assert.Equal(80, moved.ToCompositeValue(80), 1e-9);
+        Assert.Equal(100, moved.ToCompositeValue(100), 1e-9);
+        var knots = moved.CoreKnots.Zip(moved.CompositeKnots).Where(k => k.First >= 100).ToArray();
+        foreach (var (lower, upper) in knots.Zip(knots.Skip(1)))
+            Assert.True(upper.Second - lower.Second >= 0.25 * (upper.First - lower.First) - 1e-9, $"{lower} to {upper}");
+        // The pooled stretch straddles the flat one: its mean is kept, so the scale is not pushed one way.
+        Assert.Equal(300, moved.ToCompositeValue(300), 1e-9);
+    }
+
     /// <summary>
     /// Both cores depart over the reference by a sinusoid of amplitude A = 2 cm and wavelength 20 cm
     /// of composite depth about their long-run lines: a straight continuation d further errs by a mean
