@@ -19,21 +19,15 @@ internal static class AnalyseCommand
         var signal = new Option<string>("--signal") { Description = "Composite signal to analyse (a column of the core tables).", Required = true };
         var periods = new Option<string?>("--periods") { Description = "Periods in years to follow across the age ensemble and band-pass, comma-separated (e.g. 11,88)." };
         var splice = new Option<bool>("--splice") { Description = "Analyse the spliced record instead of the mean of the stacked cores." };
-        var cutoff = new Option<double>("--shift-cutoff")
-        {
-            Description = "Cut-off length of the regime-shift test in years (regimes shorter than this are not sought); converted to samples with the record's mean spacing.",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordCutoffYears,
-        };
-        var probability = new Option<double>("--shift-probability")
-        {
-            Description = "Target probability of the regime-shift t-test (two-tailed).",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordProbability,
-        };
-        var huber = new Option<double>("--huber")
-        {
-            Description = "Huber parameter of the regime-shift test, in standard deviations (outliers beyond it are down-weighted).",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordHuber,
-        };
+        var cutoff = NumberOption.Create("--shift-cutoff",
+            "Cut-off length of the regime-shift test in years (regimes shorter than this are not sought); converted to samples with the record's mean spacing.",
+            RegimeShiftOptions.LongRecordCutoffYears);
+        var probability = NumberOption.Create("--shift-probability",
+            "Target probability of the regime-shift t-test (two-tailed).",
+            RegimeShiftOptions.LongRecordProbability);
+        var huber = NumberOption.Create("--huber",
+            "Huber parameter of the regime-shift test, in standard deviations (outliers beyond it are down-weighted).",
+            RegimeShiftOptions.LongRecordHuber);
         var members = new Option<int>("--members")
         {
             Description = "Age-model members analysed at most (a seeded sample when the ensemble is larger).",

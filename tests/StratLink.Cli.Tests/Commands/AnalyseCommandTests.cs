@@ -52,6 +52,7 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
     [InlineData("--shift-cutoff", "0")]
     [InlineData("--shift-probability", "1.5")]
     [InlineData("--huber", "-1")]
+    [InlineData("--huber", "2,000")]
     [InlineData("--members", "0")]
     public void Bad_regime_settings_are_usage_errors_naming_the_option(string option, string value)
     {
