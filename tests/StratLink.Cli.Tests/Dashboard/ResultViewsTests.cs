@@ -45,18 +45,8 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Contains("Cycles and regime shifts: not analysed yet (p analyses this signal).", screen);
         h.Type("a");
         Assert.Contains("against age (cal BP)", h.Row(2));
-    }
-
-    [Fact]
-    public void Composite_against_age_shows_no_splice_past_the_oldest_age()
-    {
-        using var project = new TestProject();
-        using var h = new DashboardHarness(project);
-        h.State.SetResults(TestResults.Full(project.Loaded));
-        h.Type("3");
-        h.Type("a");
-        output.WriteLine(h.ScreenText);
-        // 0-2000 cal BP in 16 rows: 200 yr per row. Row 6 (1200-1400 cal BP, 120-140 cm) is T-2's; rows 10 on are past 2000 cal BP.
+        // 0-2000 cal BP in 16 rows: 200 yr per row. Row 6 (1200-1400 cal BP, 120-140 cm) is T-2's; from row 10 on
+        // the rows are past the oldest age, where no core is spliced.
         Assert.Equal("B", h.Cell(3 + 6, 7));
         Assert.All(Enumerable.Range(10, 6), r => Assert.Equal(" ", h.Cell(3 + r, 7)));
     }
