@@ -1,3 +1,6 @@
+using StratLink.Cli.Dashboard.Views;
+using StratLink.Model;
+using StratLink.Quantities;
 using Terminal.Gui.Input;
 using Xunit.Abstractions;
 
@@ -23,6 +26,29 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Contains("1160..1240", screen);
         // The age axis starts at the youngest 95 % bound: the coring-year control's -70 cal BP.
         Assert.Contains("-70 cal BP", screen);
+    }
+
+    [Fact]
+    public void Age_control_lines_mark_cut_texts_and_give_a_varve_count_its_anchor_depth()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        var varves = new VarveCountControl
+        {
+            Id = "varves-main-core",
+            Core = "T-1",
+            Table = "t1-varves.csv",
+            AnchorDepth = CoreDepth.From(12.5, DepthUnit.Centimetre),
+            AnchorAge = CalendarAge.FromYearsBP(-69),
+        };
+        string line = h.Window.Ages.ListLine(varves, null);
+        output.WriteLine(AgesView.ListHeader());
+        output.WriteLine(line);
+        // Columns of ListHeader: use (3), control (10), kind (8), where (12), given (14).
+        Assert.Equal("varves-ma…", line.Substring(4, 10));
+        Assert.Equal("varve-c…", line.Substring(15, 8));
+        Assert.Equal("T-1 12.5", line.Substring(24, 12).TrimEnd());
+        Assert.Equal("from -69 BP", line.Substring(37, 14).TrimEnd());
     }
 
     [Fact]

@@ -245,7 +245,7 @@ public sealed class AgesView : DashView, INavigable
             CalendarAgeControl { Marker: string m } => "at " + m,
             CalendarAgeControl c => $"{c.Core} {FormatDepth(c.Depth)}",
             RadiocarbonAgeControl r => $"{r.Core} {FormatDepth(r.Depth)}",
-            VarveCountControl v => $"{v.Core} from {FormatDepth(v.AnchorDepth)}",
+            VarveCountControl v => $"{v.Core} {FormatDepth(v.AnchorDepth)}",
             _ => "",
         };
         string given = a switch
@@ -272,5 +272,6 @@ public sealed class AgesView : DashView, INavigable
     private static string FormatNumber(double v) =>
         v.ToString(Math.Abs(v) >= 100 ? "0" : "0.##", CultureInfo.InvariantCulture);
 
-    private static string Cut(string s, int n) => s.Length > n ? s[..n] : s;
+    // A cut text ends in a mark, so "coring-yea" is not read as a control's whole id.
+    private string Cut(string s, int n) => s.Length > n ? s[..(n - 1)] + (Glyphs.Unicode ? "…" : "~") : s;
 }
