@@ -1,3 +1,4 @@
+using StratLink.Cli.Dashboard.Results;
 using StratLink.Cli.Dashboard.Views;
 using StratLink.Model;
 using StratLink.Quantities;
@@ -49,6 +50,30 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Equal("varve-c…", line.Substring(15, 8));
         Assert.Equal("T-1 12.5", line.Substring(24, 12).TrimEnd());
         Assert.Equal("from -69 BP", line.Substring(37, 14).TrimEnd());
+    }
+
+    [Fact]
+    public void Ages_screen_of_a_project_dated_by_a_target_names_the_target_not_no_controls()
+    {
+        string yaml = TestProject.Yaml[..TestProject.Yaml.IndexOf("ages:", StringComparison.Ordinal)] + """
+            target:
+              table: stacks/benthic-stack.txt
+              age_column: age
+              signal: ms
+            alignment:
+              reference: T-1
+              signals: {ms: 1.0}
+            """;
+        using var project = new TestProject(yaml: yaml);
+        using var h = new DashboardHarness(project);
+        h.Type("2");
+        Assert.Contains("No controls in the file; a run dates the cores by benthic-stack.txt.", h.ScreenText);
+        var results = TestResults.Full(project.Loaded);
+        h.State.SetResults(results with { Controls = [new ControlOutcome("target:T-1:20", 20, 300, 250, 350, ""), new ControlOutcome("target:T-1:40", 40, 500, 450, 550, "")] });
+        h.App.LayoutAndDraw();
+        output.WriteLine(h.ScreenText);
+        Assert.Contains("No controls in the file: dated by benthic-stack.txt (2 transferred ages).", h.ScreenText);
+        Assert.DoesNotContain("no age controls", h.ScreenText);
     }
 
     [Fact]

@@ -1,3 +1,4 @@
+using StratLink.AgeModelling;
 using StratLink.Quantities;
 using System.Globalization;
 using StratLink.Cli.Dashboard.Drawing;
@@ -220,7 +221,7 @@ public sealed class AgesView : DashView, INavigable
         Put(area.X, area.Y, Fit(" " + ListHeader(), area.Width), pal.Header);
         if (ages.Count == 0)
         {
-            Put(area.X + 2, area.Y + 2, "The project has no age controls.", pal.Dim, area.Width - 2);
+            Put(area.X + 2, area.Y + 2, NoControlsText(), pal.Dim, area.Width - 2);
             return;
         }
         int rows = area.Height - 1;
@@ -233,6 +234,17 @@ public sealed class AgesView : DashView, INavigable
             var attr = index == Selection.Selected ? pal.CursorRow : a.Exclude ? pal.Dim : pal.Normal;
             Put(area.X, area.Y + 1 + i, Fit(" " + line, area.Width), attr);
         }
+    }
+
+    // A dated target adds its transferred ages at each run, though the file lists no control.
+    private string NoControlsText()
+    {
+        if (_state.Project.Target is not { } target) return "The project has no age controls.";
+        int transferred = _state.Results?.Controls.Count(c => c.Id.StartsWith(TargetAgeControls.IdPrefix, StringComparison.Ordinal)) ?? 0;
+        string name = Path.GetFileName(target.Table);
+        return transferred > 0
+            ? $"No controls in the file: dated by {name} ({transferred} transferred ages)."
+            : $"No controls in the file; a run dates the cores by {name}.";
     }
 
     /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
