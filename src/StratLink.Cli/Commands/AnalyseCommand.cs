@@ -94,7 +94,7 @@ internal static class AnalyseCommand
             }
             var regimes = result.Options.Regimes;
             ctx.Out.WriteLine(FormattableString.Invariant(
-                $"Regime shifts (l = {regimes.CutoffLength} samples = {Num(cutoffYears)} yr, p = {Num(regimes.Probability)}, h = {Num(regimes.HuberParameter)}): {result.Regimes.Shifts.Count}"));
+                $"Regime shifts (l = {CutoffText(regimes.CutoffLength, cutoffYears, result.Series.MeanSpacingYears)}, p = {Num(regimes.Probability)}, h = {Num(regimes.HuberParameter)}): {result.Regimes.Shifts.Count}"));
             foreach (var shift in result.Regimes.Shifts)
             {
                 var spread = result.Ensemble?.Shifts.FirstOrDefault(s => s.Shift == shift);
@@ -111,6 +111,12 @@ internal static class AnalyseCommand
     }
 
     private static string Num(double v) => v.ToString("0.###", CultureInfo.InvariantCulture);
+
+    // The test takes two samples at least: on a coarse record the cut-off asked for is far shorter than the one used.
+    private static string CutoffText(int samples, double askedYears, double spacingYears) =>
+        askedYears / spacingYears < samples - 0.5
+            ? $"{samples} samples = {Math.Round(samples * spacingYears).ToString(CultureInfo.InvariantCulture)} yr, the least the test takes; --shift-cutoff {Num(askedYears)} yr is shorter"
+            : $"{samples} samples = {Num(askedYears)} yr";
 
     internal static bool TryParsePeriods(string? text, out IReadOnlyList<double> periods, out string? bad)
     {

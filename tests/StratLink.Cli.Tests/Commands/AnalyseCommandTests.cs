@@ -48,6 +48,21 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
         Assert.True(File.Exists(Path.Combine(target, "shifts.csv")));
     }
 
+    [Fact]
+    public void A_cutoff_under_two_samples_is_reported_with_the_length_used()
+    {
+        // The demo is sampled about every 2 yr: a 1 yr cut-off is half a sample, and Rodionov's test (2004) needs l >= 2.
+        string project = CliRunner.CopyDemo(Path.Combine(_dir, "demo"));
+        string target = Path.Combine(_dir, "out");
+        var (code, output, err) = CliRunner.Run("analyse", project, "--signal", "ca_ti", "--shift-cutoff", "1", "--members", "10", "--out", target);
+        Assert.True(code == 0, output + err);
+        log.WriteLine(output);
+        var l = Regex.Match(output, @"l = 2 samples = (\d+) yr, the least the test takes; --shift-cutoff 1 yr is shorter, p = 0\.05");
+        Assert.True(l.Success, output);
+        double spacing = double.Parse(File.ReadAllLines(Path.Combine(target, "summary.csv")).Single(r => r.StartsWith("mean_spacing_yr,", StringComparison.Ordinal)).Split(',')[1], CultureInfo.InvariantCulture);
+        Assert.Equal(Math.Round(2 * spacing), double.Parse(l.Groups[1].Value, CultureInfo.InvariantCulture));
+    }
+
     [Theory]
     [InlineData("--shift-cutoff", "0")]
     [InlineData("--shift-probability", "1.5")]
