@@ -19,21 +19,15 @@ internal static class AnalyseCommand
         var signal = new Option<string>("--signal") { Description = "Composite signal to analyse (a column of the core tables).", Required = true };
         var periods = new Option<string?>("--periods") { Description = "Periods in years to follow across the age ensemble and band-pass, comma-separated (e.g. 11,88)." };
         var splice = new Option<bool>("--splice") { Description = "Analyse the spliced record instead of the mean of the stacked cores." };
-        var cutoff = new Option<double>("--shift-cutoff")
-        {
-            Description = "Cut-off length of the regime-shift test in years (regimes shorter than this are not sought); converted to samples with the record's mean spacing.",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordCutoffYears,
-        };
-        var probability = new Option<double>("--shift-probability")
-        {
-            Description = "Target probability of the regime-shift t-test (two-tailed).",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordProbability,
-        };
-        var huber = new Option<double>("--huber")
-        {
-            Description = "Huber parameter of the regime-shift test, in standard deviations (outliers beyond it are down-weighted).",
-            DefaultValueFactory = _ => RegimeShiftOptions.LongRecordHuber,
-        };
+        var cutoff = NumberOption.Create("--shift-cutoff",
+            "Cut-off length of the regime-shift test in years (regimes shorter than this are not sought); converted to samples with the record's mean spacing.",
+            RegimeShiftOptions.LongRecordCutoffYears);
+        var probability = NumberOption.Create("--shift-probability",
+            "Target probability of the regime-shift t-test (two-tailed).",
+            RegimeShiftOptions.LongRecordProbability);
+        var huber = NumberOption.Create("--huber",
+            "Huber parameter of the regime-shift test, in standard deviations (outliers beyond it are down-weighted).",
+            RegimeShiftOptions.LongRecordHuber);
         var members = new Option<int>("--members")
         {
             Description = "Age-model members analysed at most (a seeded sample when the ensemble is larger).",
@@ -100,7 +94,7 @@ internal static class AnalyseCommand
             }
             var regimes = result.Options.Regimes;
             ctx.Out.WriteLine(FormattableString.Invariant(
-                $"Regime shifts (l = {regimes.CutoffLength} samples = {Num(cutoffYears)} yr, p = {Num(regimes.Probability)}, h = {Num(regimes.HuberParameter)}): {result.Regimes.Shifts.Count}"));
+                $"Regime shifts (l = {CutoffText(regimes.CutoffLength, cutoffYears, result.Series.MeanSpacingYears)}, p = {Num(regimes.Probability)}, h = {Num(regimes.HuberParameter)}): {result.Regimes.Shifts.Count}"));
             foreach (var shift in result.Regimes.Shifts)
             {
                 var spread = result.Ensemble?.Shifts.FirstOrDefault(s => s.Shift == shift);
@@ -117,6 +111,12 @@ internal static class AnalyseCommand
     }
 
     private static string Num(double v) => v.ToString("0.###", CultureInfo.InvariantCulture);
+
+    // The test takes two samples at least: on a coarse record the cut-off asked for is far shorter than the one used.
+    private static string CutoffText(int samples, double askedYears, double spacingYears) =>
+        askedYears / spacingYears < samples - 0.5
+            ? $"{samples} samples = {Math.Round(samples * spacingYears).ToString(CultureInfo.InvariantCulture)} yr, the least the test takes; --shift-cutoff {Num(askedYears)} yr is shorter"
+            : $"{samples} samples = {Num(askedYears)} yr";
 
     internal static bool TryParsePeriods(string? text, out IReadOnlyList<double> periods, out string? bad)
     {

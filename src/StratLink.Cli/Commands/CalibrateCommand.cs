@@ -11,11 +11,11 @@ internal static class CalibrateCommand
 {
     public static Command Create(CliContext ctx)
     {
-        var c14 = new Option<double>("--c14") { Description = "Conventional radiocarbon age, 14C yr BP.", Required = true };
-        var error = new Option<double>("--error") { Description = "Its 1-sigma error, 14C yr.", Required = true };
+        var c14 = NumberOption.Create("--c14", "Conventional radiocarbon age, 14C yr BP.", required: true);
+        var error = NumberOption.Create("--error", "Its 1-sigma error, 14C yr.", required: true);
         var curve = new Option<FileInfo>("--curve") { Description = "Calibration curve file (cal BP, 14C age, sigma, ...; '#' header lines).", Required = true };
-        var deltaR = new Option<double>("--delta-r") { Description = "Reservoir offset Delta-R, 14C yr (default 0)." };
-        var deltaRError = new Option<double>("--delta-r-error") { Description = "1-sigma error of Delta-R, 14C yr (default 0)." };
+        var deltaR = NumberOption.Create("--delta-r", "Reservoir offset Delta-R, 14C yr.");
+        var deltaRError = NumberOption.Create("--delta-r-error", "1-sigma error of Delta-R, 14C yr.");
         var csv = new Option<FileInfo?>("--csv") { Description = "Write the calendar-age density here (columns age_bp, probability)." };
         var json = new Option<bool>("--json") { Description = "Print median and ranges as JSON instead of text." };
 

@@ -44,7 +44,7 @@ public static class HelpText
         Legend(glyphs.EventLayer, "event layer: an instantaneous deposit, cut out of the ages and the stacks, kept for alignment");
         Legend(glyphs.TieMark + " " + glyphs.EventTieMark + " " + glyphs.SelectedTieMark, "a tie (marker layer) in this core: a tephra or other layer, an event layer (turbidite, flood, event), the selected tie; solid lines join it across logs");
         Legend(glyphs.TieThrough, "a tie passing a log that does not hold it, on its way to a log further on");
-        Legend("dotted lines", "the alignment: which depths correspond after the last run");
+        Legend("dotted lines", "the alignment: which depths correspond after the last run, where both cores have record");
         Legend(glyphs.Unicode ? "▶" : ">", "the depth cursor; the active log's cursor row is highlighted");
         Legend(glyphs.ActiveLog + " " + glyphs.PartnerLog, "before the active log's name, and before the partner that new ties go to");
         lines.Add("");

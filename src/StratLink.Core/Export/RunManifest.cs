@@ -38,7 +38,8 @@ public static class RunManifest
                 w.WriteString(core.Table, File.Exists(full) ? Sha256(full) : "missing");
             }
             foreach (var extra in project.Ages.OfType<VarveCountControl>().Select(v => v.Table)
-                         .Concat(project.Ages.OfType<RadiocarbonAgeControl>().Select(r => r.Curve)).Distinct())
+                         .Concat(project.Ages.OfType<RadiocarbonAgeControl>().Select(r => r.Curve))
+                         .Concat(TargetTables(project.Target)).Distinct())
             {
                 string full = document.Resolve(extra);
                 w.WriteString(extra, File.Exists(full) ? Sha256(full) : "missing");
@@ -61,6 +62,10 @@ public static class RunManifest
         }
         AtomicFile.WriteAllText(path, System.Text.Encoding.UTF8.GetString(stream.ToArray()) + "\n", keepBackup: false);
     }
+
+    // A dated target's record (and its age model) dates cores as much as their own controls do.
+    private static IEnumerable<string> TargetTables(DatedTargetSpec? target) =>
+        target is null ? [] : target.AgeModel is { } model ? [target.Table, model.Table] : [target.Table];
 
     public static string Sha256(string path)
     {

@@ -32,5 +32,15 @@ public static class ProjectWriter
         return text;
     }
 
-    public static void Save(Project p, string path) => AtomicFile.WriteAllText(path, ToYaml(p));
+    /// <summary>Saves atomically; a YAML language server line heading the file it replaces heads the new one too.</summary>
+    public static void Save(Project p, string path) => AtomicFile.WriteAllText(path, LanguageServerLine(path) + ToYaml(p));
+
+    // The canonical writer keeps no comments, but this one line is what lets an editor check the file against its schema.
+    private static string LanguageServerLine(string path)
+    {
+        if (!File.Exists(path)) return "";
+        using var reader = new StreamReader(path);
+        string? first = reader.ReadLine()?.TrimStart('\uFEFF');
+        return first is not null && first.StartsWith("# yaml-language-server:", StringComparison.Ordinal) ? first.TrimEnd() + "\n" : "";
+    }
 }

@@ -16,14 +16,21 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
-    [Fact]
-    public void The_demo_cycles_and_shifts_are_found_with_the_long_record_defaults()
+    /// <summary>Analyses the demo's Ca/Ti with the options given; the printed report and the output folder.</summary>
+    private (string Output, string Target) AnalyseDemo(params string[] options)
     {
         string project = CliRunner.CopyDemo(Path.Combine(_dir, "demo"));
         string target = Path.Combine(_dir, "out");
-        var (code, output, err) = CliRunner.Run("analyse", project, "--signal", "ca_ti", "--periods", "11,88", "--members", "100", "--out", target);
+        var (code, output, err) = CliRunner.Run(["analyse", project, "--signal", "ca_ti", .. options, "--out", target]);
         Assert.True(code == 0, output + err);
         log.WriteLine(output);
+        return (output, target);
+    }
+
+    [Fact]
+    public void The_demo_cycles_and_shifts_are_found_with_the_long_record_defaults()
+    {
+        var (output, target) = AnalyseDemo("--periods", "11,88", "--members", "100");
 
         Assert.Contains("100 age-model members", output);
         // Default cut-off 150 yr on a record sampled about every 2 yr: l = 70-80 samples.
@@ -48,10 +55,22 @@ public sealed partial class AnalyseCommandTests(ITestOutputHelper log) : IDispos
         Assert.True(File.Exists(Path.Combine(target, "shifts.csv")));
     }
 
+    [Fact]
+    public void A_cutoff_under_two_samples_is_reported_with_the_length_used()
+    {
+        // The demo is sampled about every 2 yr: a 1 yr cut-off is half a sample, and Rodionov's test (2004) needs l >= 2.
+        var (output, target) = AnalyseDemo("--shift-cutoff", "1", "--members", "10");
+        var l = Regex.Match(output, @"l = 2 samples = (\d+) yr, the least the test takes; --shift-cutoff 1 yr is shorter, p = 0\.05");
+        Assert.True(l.Success, output);
+        double spacing = double.Parse(File.ReadAllLines(Path.Combine(target, "summary.csv")).Single(r => r.StartsWith("mean_spacing_yr,", StringComparison.Ordinal)).Split(',')[1], CultureInfo.InvariantCulture);
+        Assert.Equal(Math.Round(2 * spacing), double.Parse(l.Groups[1].Value, CultureInfo.InvariantCulture));
+    }
+
     [Theory]
     [InlineData("--shift-cutoff", "0")]
     [InlineData("--shift-probability", "1.5")]
     [InlineData("--huber", "-1")]
+    [InlineData("--huber", "2,000")]
     [InlineData("--members", "0")]
     public void Bad_regime_settings_are_usage_errors_naming_the_option(string option, string value)
     {

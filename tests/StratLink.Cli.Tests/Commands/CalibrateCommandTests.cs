@@ -1,11 +1,12 @@
 using System.Globalization;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using StratLink.Cli;
 using StratLink.Tests.TestSupport;
 
 namespace StratLink.Tests.Commands;
 
-public class CalibrateCommandTests
+public partial class CalibrateCommandTests
 {
     /// <summary>IntCal20 (Reimer et al. 2020) from ../shared/data beside the repository root; missing data fails loudly.</summary>
     private static string IntCal20() => RepoPaths.Data("calibration-curves", "intcal20.14c");
@@ -46,6 +47,18 @@ public class CalibrateCommandTests
     }
 
     [Fact]
+    public void DecimalCommaReadsAsADecimalMark()
+    {
+        // 3000,5 is 3000.5, not 30005 (the toolkit's default number parser allows thousands separators).
+        var (code, output, err) = Run("calibrate", "--c14", "3000,5", "--error", "30,0", "--curve", IntCal20());
+        Assert.True(code == 0, err);
+        Assert.Contains("Radiocarbon age   3001 +- 30 14C yr BP", output);
+        // 3000 14C yr BP calibrates to about 3200 cal BP on IntCal20 (from memory; wide bound).
+        double median = double.Parse(MedianLine().Match(output).Groups[1].Value, CultureInfo.InvariantCulture);
+        Assert.InRange(median, 3100, 3300);
+    }
+
+    [Fact]
     public void ModernDateExitsWithFindingAndMessage()
     {
         var (code, _, err) = Run("calibrate", "--c14", "-300", "--error", "30", "--curve", IntCal20());
@@ -60,4 +73,7 @@ public class CalibrateCommandTests
         Assert.Equal(ExitCodes.Usage, code);
         Assert.Contains("not found", err);
     }
+
+    [GeneratedRegex(@"Median\s+(\d+) cal BP")]
+    private static partial Regex MedianLine();
 }

@@ -1,6 +1,7 @@
 using StratLink.Checks;
 using StratLink.Cli.Dashboard;
 using StratLink.Cli.Dashboard.Drawing;
+using StratLink.Cli.Dashboard.Views;
 using Terminal.Gui.Input;
 using Xunit.Abstractions;
 
@@ -113,6 +114,26 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         h.Window.Logs.SetCursor(110);
         h.Press(new Key('='));
         Assert.Equal(100, h.Window.Logs.Slots[1].Cursor, 6);
+    }
+
+    [Fact]
+    public void Alignment_lines_stop_where_either_core_ends()
+    {
+        // Cores of 0-200 cm; T-2's composite is 1.1 x its depth, so no correspondence lies below 220 cm in any log.
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        h.Press(new Key('f'));
+        h.State.SetResults(TestResults.Full(project.Loaded));
+        h.App.LayoutAndDraw();
+        var logs = h.Window.Logs;
+        var layout = LogLayout.For(logs.Viewport.Width, logs.Slots.Count);
+        int Dots(Func<double, bool> rowDepth) =>
+            Enumerable.Range(0, logs.PlotRows).Where(r => rowDepth(r * logs.DepthPerRow)).Sum(r =>
+                Enumerable.Range(0, logs.Slots.Count - 1).Sum(k =>
+                    Enumerable.Range(layout.GutterLeft(k), layout.GutterWidth).Count(c => IsBraille(h.Cell(4 + r, c)))));
+        Assert.True(logs.PlotRows * logs.DepthPerRow > 300, $"the fitted view reaches {logs.PlotRows * logs.DepthPerRow} cm");
+        Assert.True(Dots(top => top + logs.DepthPerRow < 180) > 10, "lines where the cores overlap");
+        Assert.Equal(0, Dots(top => top > 220));
     }
 
     [Fact]

@@ -68,6 +68,25 @@ public sealed class FindingsViewTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Header_and_the_empty_filter_message_fit_80_columns()
+    {
+        using var project = WithFindings();
+        using var h = new DashboardHarness(project);
+        h.Type("4");
+        // Too long with the hint on Enter (the key line names it): the counts alone, whole.
+        Assert.Equal(" Findings: 4 from the files, checks not run yet.", h.Row(2).TrimEnd());
+        h.Type("l");
+        h.Type("l");
+        h.Type("c");
+        output.WriteLine(h.ScreenText);
+        Assert.Empty(h.Window.Findings.Items);
+        Assert.EndsWith($"0 shown ({h.Window.Findings.FilterText()}).", h.Row(2).TrimEnd());
+        // The message, wrapped below the header, names the filters in full.
+        string message = string.Join(" ", Enumerable.Range(4, 4).Select(r => h.Row(r).Trim()).Where(l => l.Length > 0));
+        Assert.Equal($"No finding passes the filters ({h.Window.Findings.FilterText()}); l and c change them.", message);
+    }
+
+    [Fact]
     public void Wrapping_keeps_every_word_and_splits_only_overlong_ones()
     {
         var lines = FindingsView.Wrap("aaa bbb ccccccccccccccccccccc dd", 10).ToList();

@@ -1,3 +1,7 @@
+using StratLink.Cli.Dashboard.Results;
+using StratLink.Cli.Dashboard.Views;
+using StratLink.Model;
+using StratLink.Quantities;
 using Terminal.Gui.Input;
 using Xunit.Abstractions;
 
@@ -26,6 +30,53 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Age_control_lines_mark_cut_texts_and_give_a_varve_count_its_anchor_depth()
+    {
+        using var project = new TestProject();
+        using var h = new DashboardHarness(project);
+        var varves = new VarveCountControl
+        {
+            Id = "varves-main-core",
+            Core = "T-1",
+            Table = "t1-varves.csv",
+            AnchorDepth = CoreDepth.From(12.5, DepthUnit.Centimetre),
+            AnchorAge = CalendarAge.FromYearsBP(-69),
+        };
+        string line = h.Window.Ages.ListLine(varves, null);
+        output.WriteLine(AgesView.ListHeader());
+        output.WriteLine(line);
+        // Columns of ListHeader: use (3), control (10), kind (8), where (12), given (14).
+        Assert.Equal("varves-ma…", line.Substring(4, 10));
+        Assert.Equal("varve-c…", line.Substring(15, 8));
+        Assert.Equal("T-1 12.5", line.Substring(24, 12).TrimEnd());
+        Assert.Equal("from -69 BP", line.Substring(37, 14).TrimEnd());
+    }
+
+    [Fact]
+    public void Ages_screen_of_a_project_dated_by_a_target_names_the_target_not_no_controls()
+    {
+        string yaml = TestProject.Yaml[..TestProject.Yaml.IndexOf("ages:", StringComparison.Ordinal)] + """
+            target:
+              table: stacks/benthic-stack.txt
+              age_column: age
+              signal: ms
+            alignment:
+              reference: T-1
+              signals: {ms: 1.0}
+            """;
+        using var project = new TestProject(yaml: yaml);
+        using var h = new DashboardHarness(project);
+        h.Type("2");
+        Assert.Contains("No controls in the file; a run dates the cores by benthic-stack.txt.", h.ScreenText);
+        var results = TestResults.Full(project.Loaded);
+        h.State.SetResults(results with { Controls = [new ControlOutcome("target:T-1:20", 20, 300, 250, 350, ""), new ControlOutcome("target:T-1:40", 40, 500, 450, 550, "")] });
+        h.App.LayoutAndDraw();
+        output.WriteLine(h.ScreenText);
+        Assert.Contains("No controls in the file: dated by benthic-stack.txt (2 transferred ages).", h.ScreenText);
+        Assert.DoesNotContain("no age controls", h.ScreenText);
+    }
+
+    [Fact]
     public void Composite_screen_draws_band_splice_strip_and_switches_to_age()
     {
         using var project = new TestProject();
@@ -45,6 +96,10 @@ public sealed class ResultViewsTests(ITestOutputHelper output)
         Assert.Contains("Cycles and regime shifts: not analysed yet (p analyses this signal).", screen);
         h.Type("a");
         Assert.Contains("against age (cal BP)", h.Row(2));
+        // 0-2000 cal BP in 16 rows: 200 yr per row. Row 6 (1200-1400 cal BP, 120-140 cm) is T-2's; from row 10 on
+        // the rows are past the oldest age, where no core is spliced.
+        Assert.Equal("B", h.Cell(3 + 6, 7));
+        Assert.All(Enumerable.Range(10, 6), r => Assert.Equal(" ", h.Cell(3 + r, 7)));
     }
 
     [Fact]

@@ -55,11 +55,11 @@ internal sealed class TestProject : IDisposable
           signals: {ms: 1.0}
         """;
 
-    public TestProject(int samplesPerCore = 401, double step = 0.5, string yaml = Yaml)
+    public TestProject(int samplesPerCore = 401, double step = 0.5, string yaml = Yaml, string fileName = "testmere.yaml")
     {
         Folder = Path.Combine(Path.GetTempPath(), "stratlink-dash-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(Folder);
-        FilePath = Path.Combine(Folder, "testmere.yaml");
+        FilePath = Path.Combine(Folder, fileName);
         File.WriteAllText(FilePath, yaml);
         var document = ProjectReader.Load(FilePath);
         if (document.Project is null) throw new InvalidOperationException(string.Join("\n", document.Problems));

@@ -94,6 +94,18 @@ public sealed class TieEditingKeyTests
     }
 
     [Fact]
+    public void The_save_message_of_a_long_project_name_fits_80_columns()
+    {
+        using var project = new TestProject(fileName: "mirrowick-fjord.stratlink.yaml");
+        using var h = new DashboardHarness(project);
+        h.Press(Key.CursorDown);
+        h.Type("t");
+        h.Type("s");
+        Assert.True(File.Exists(project.FilePath + ".bak"));
+        Assert.Contains(" Saved mirrowick-fjord.stratlink.yaml (the previous version as .bak).", h.ScreenText);
+    }
+
+    [Fact]
     public void Every_edit_writes_the_recovery_file_and_saving_removes_it()
     {
         using var project = new TestProject();

@@ -1,3 +1,4 @@
+using StratLink.AgeModelling;
 using StratLink.Quantities;
 using System.Globalization;
 using StratLink.Cli.Dashboard.Drawing;
@@ -220,7 +221,7 @@ public sealed class AgesView : DashView, INavigable
         Put(area.X, area.Y, Fit(" " + ListHeader(), area.Width), pal.Header);
         if (ages.Count == 0)
         {
-            Put(area.X + 2, area.Y + 2, "The project has no age controls.", pal.Dim, area.Width - 2);
+            Put(area.X + 2, area.Y + 2, NoControlsText(), pal.Dim, area.Width - 2);
             return;
         }
         int rows = area.Height - 1;
@@ -235,6 +236,17 @@ public sealed class AgesView : DashView, INavigable
         }
     }
 
+    // A dated target adds its transferred ages at each run, though the file lists no control.
+    private string NoControlsText()
+    {
+        if (_state.Project.Target is not { } target) return "The project has no age controls.";
+        int transferred = _state.Results?.Controls.Count(c => c.Id.StartsWith(TargetAgeControls.IdPrefix, StringComparison.Ordinal)) ?? 0;
+        string name = Path.GetFileName(target.Table);
+        return transferred > 0
+            ? $"No controls in the file: dated by {name} ({transferred} transferred ages)."
+            : $"No controls in the file; a run dates the cores by {name}.";
+    }
+
     /// <summary>Column heads; "use" says whether the age model takes the control in or leaves it out.</summary>
     public static string ListHeader() => $"{"use",-3} {"control",-10} {"kind",-8} {"where",-12} {"given",-14} {"prior 95%",-11} {"post 95%",-11} {"outl",4} flags";
 
@@ -245,7 +257,7 @@ public sealed class AgesView : DashView, INavigable
             CalendarAgeControl { Marker: string m } => "at " + m,
             CalendarAgeControl c => $"{c.Core} {FormatDepth(c.Depth)}",
             RadiocarbonAgeControl r => $"{r.Core} {FormatDepth(r.Depth)}",
-            VarveCountControl v => $"{v.Core} from {FormatDepth(v.AnchorDepth)}",
+            VarveCountControl v => $"{v.Core} {FormatDepth(v.AnchorDepth)}",
             _ => "",
         };
         string given = a switch
@@ -272,5 +284,6 @@ public sealed class AgesView : DashView, INavigable
     private static string FormatNumber(double v) =>
         v.ToString(Math.Abs(v) >= 100 ? "0" : "0.##", CultureInfo.InvariantCulture);
 
-    private static string Cut(string s, int n) => s.Length > n ? s[..n] : s;
+    // A cut text ends in a mark, so "coring-yea" is not read as a control's whole id.
+    private string Cut(string s, int n) => s.Length > n ? s[..(n - 1)] + (Glyphs.Unicode ? "…" : "~") : s;
 }

@@ -168,11 +168,15 @@ public sealed class CompositeView : DashView, INavigable
 
         var splice = composite.Splice;
         var coreIndex = splice.Select(s => s.Core).Distinct().ToList();
+        // Ages past the record's ends have no composite depth (looking one up would repeat the end core's letter).
+        var ages = byAge ? Finite(signal.AgeMedianBP!).ToList() : [];
+        (double youngest, double oldest) = ages.Count > 0 ? (ages.Min(), ages.Max()) : (double.NegativeInfinity, double.PositiveInfinity);
         for (int r = 0; r < rows; r++)
         {
             if (r % 4 == 0) Put(0, 1 + r, Number(top + r * 4 * dot).PadLeft(6)[^6..], pal.Dim);
             // Splice strip: the core the row's composite depth comes from.
             double rowMid = top + (r + 0.5) * 4 * dot;
+            if (rowMid < youngest || rowMid > oldest) continue;
             double depthMid = byAge ? DepthAtAge(signal, rowMid) : rowMid;
             var seg = splice.FirstOrDefault(s => depthMid >= s.From && depthMid <= s.To);
             if (seg is not null)

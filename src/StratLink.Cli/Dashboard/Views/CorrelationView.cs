@@ -440,10 +440,14 @@ public sealed class CorrelationView : DashView, INavigable
                 LogSlot a = _slots[i], b = _slots[j];
                 if (!alignment.Mappings.TryGetValue(a.CoreId, out var ma) || !alignment.Mappings.TryGetValue(b.CoreId, out var mb)) continue;
                 // Every other row, and each line dotted, so alignment lines read apart from ties without colour.
+                // Only depths both cores recovered: the mappings extrapolate past a core's ends, where nothing corresponds.
+                var (topA, bottomA) = CoreRange(a.CoreId);
+                var (topB, bottomB) = CoreRange(b.CoreId);
                 for (int r = 1; r < rows; r += 2)
                 {
                     double depthA = a.Top + (r + 0.5) * DepthPerRow;
                     double depthB = mb.Median.ToCoreValue(ma.Median.ToCompositeValue(depthA));
+                    if (depthA < topA || depthA > bottomA || depthB < topB || depthB > bottomB) continue;
                     Across(align, layout, i, j, DotY(a, depthA), DotY(b, depthB), dotted: true);
                 }
             }

@@ -507,7 +507,8 @@ public sealed class DashboardWindow : Runnable
         _state.MarkSaved(project);
         TryDeleteRecovery();
         _recent?.Add(_state.FilePath);
-        Show($"Saved {Path.GetFileName(_state.FilePath)} (the previous version is {Path.GetFileName(_state.FilePath)}.bak).");
+        // Short enough for 80 columns with a long project name.
+        Show($"Saved {Path.GetFileName(_state.FilePath)} (the previous version as .bak).");
         return true;
     }
 

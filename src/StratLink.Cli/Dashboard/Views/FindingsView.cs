@@ -157,11 +157,17 @@ public sealed class FindingsView : DashView
         var items = Items;
         int all = AllItems.Count;
         string checks = _state.Results?.Checks is null ? "checks not run yet" : $"{_state.Results.Checks.Count} from the checks";
-        string shown = items.Count == all ? "" : $"; {items.Count} shown ({FilterText()})";
-        Put(0, 0, Fit($" Findings: {_state.Loaded.Problems.Count} from the files, {checks}{shown}. Enter shows the place in the logs.", Viewport.Width), pal.Header);
+        string counts = $" Findings: {_state.Loaded.Problems.Count} from the files, {checks}";
+        // The longest header that fits: the filters are named again below when they hide everything.
+        string[] headers = items.Count == all
+            ? [counts + ". Enter shows the place in the logs.", counts + "."]
+            : [counts + $"; {items.Count} shown ({FilterText()}).", counts + $"; {items.Count} shown."];
+        Put(0, 0, Fit(headers.FirstOrDefault(t => t.Length <= Viewport.Width) ?? headers[^1], Viewport.Width), pal.Header);
         if (items.Count == 0)
         {
-            Put(2, 2, all == 0 ? "Nothing to report." : $"No finding passes the filters ({FilterText()}); l and c change them.", pal.Dim);
+            string text = all == 0 ? "Nothing to report." : $"No finding passes the filters ({FilterText()}); l and c change them.";
+            var lines = Wrap(text, Math.Max(1, Viewport.Width - 4)).ToList();
+            for (int i = 0; i < lines.Count && 2 + i < Viewport.Height; i++) Put(2, 2 + i, lines[i], pal.Dim);
             return true;
         }
         // The detail pane takes the rows the selected finding needs (the list keeps three at least).
