@@ -145,10 +145,31 @@ public sealed class CorrelationViewTests(ITestOutputHelper output)
         h.State.SetResults(TestResults.Full(project.Loaded) with { Checks = [misfit] });
         h.Type("]");
         Assert.Equal("ash-1", h.Window.Logs.SelectedTie);
-        Assert.Contains("ash-1 tephra ±0 cm: T-1 50, T-2 45", h.Row(21));
+        // At 80 columns the shortest line: the misfit and the signals' verdict before the other depths and words.
+        Assert.Contains("ash-1 ±0 cm: T-2 45 (+1) | left out +5 cm | signals misplace it in T-2", h.Row(21));
         Assert.Contains("signals misplace it in T-2", h.Window.Logs.DetailText());
         h.Type("]");
         Assert.DoesNotContain("signals misplace", h.Window.Logs.DetailText());
+    }
+
+    [Fact]
+    public void At_80_columns_a_tie_of_many_cores_keeps_its_misfit_on_the_detail_line()
+    {
+        // The turbidite is renamed and given an uncertainty so that its full line (three cores' depths and the
+        // misfit) passes 79 columns; the compact one keeps the misfit and the depth it is for.
+        string yaml = TestProject.Yaml.Replace("id: tb-1\n    kind: turbidite", "id: tb-1-north-basin-megaturbidite\n    kind: turbidite\n    uncertainty: 0.25");
+        Assert.NotEqual(TestProject.Yaml, yaml);
+        using var project = new TestProject(yaml: yaml);
+        using var h = new DashboardHarness(project);
+        h.Type("]]");
+        Assert.Equal("tb-1-north-basin-megaturbidite", h.Window.Logs.SelectedTie);
+        string text = h.Window.Logs.DetailText();
+        Assert.True(text.Length < 80, text);
+        Assert.Contains(": T-2 110 (+2) | left out -5 cm (20×±)", text);
+        Assert.Contains(text, h.Row(21));
+        using var wide = new DashboardHarness(project, 160, 48);
+        wide.Type("]]");
+        Assert.Contains("T-1 120, T-2 110, T-3 100 | left out: T-2 ", wide.Window.Logs.DetailText());
     }
 
     [Fact]

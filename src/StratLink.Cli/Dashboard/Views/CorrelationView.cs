@@ -533,8 +533,12 @@ public sealed class CorrelationView : DashView, INavigable
             var flagged = _state.ResultsState == ResultsState.Current
                 ? _state.Results?.Checks?.Where(f => f.Code == Checks.CheckCodes.TieMisfit && f.Item == m.Id && f.Core is not null).Select(f => f.Core!).ToList()
                 : null;
-            string signals = flagged is { Count: > 0 } ? $" | signals misplace it in {string.Join(", ", flagged)} (4 lists why)" : "";
-            return TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId) + signals;
+            string signals = flagged is { Count: > 0 } ? $" | signals misplace it in {string.Join(", ", flagged)}" : "";
+            string full = TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId) + signals + (signals.Length > 0 ? " (4 lists why)" : "");
+            if (full.Length < Viewport.Width) return full;
+            // The line is drawn after one blank column; where it would be cut, the misfits outrank the other cores' depths.
+            string shorter = TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId, shortening: 1) + signals;
+            return shorter.Length < Viewport.Width ? shorter : TieDetail.Line(Project, m, ActiveSlot?.CoreId, PartnerSlot?.CoreId, shortening: 2) + signals;
         }
         if (ActiveSlot is not { } slot || Table(slot.CoreId) is not { } table || slot.Signal is null
             || !table.Signals.TryGetValue(slot.Signal, out var values)) return "";

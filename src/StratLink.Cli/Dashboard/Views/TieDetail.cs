@@ -37,27 +37,37 @@ public static class TieDetail
     }
 
     /// <summary>
-    /// "ash-1 tephra ±0.3 cm: A 73.4, B 80.6 | left out: B +1.2 cm (4.0 ±)": the misfit is given for
+    /// "ash-1 tephra ±0.3 cm: A 73.4, B 80.6 | left out: B +1.2 cm (4.0 ±) from A": the misfit is given for
     /// <paramref name="focusCore"/> (the partner log) when it holds the tie, else for the core where it is largest.
+    /// Shorter forms, for a line a narrow terminal would cut before the misfit (<paramref name="shortening"/> 1 and 2):
+    /// "ash-1 tephra ±0.3 cm: A 73.4, B 80.6 (+1) | left out +1.2 cm (4.0 ±)", the anchor's and that core's depths and how
+    /// many others the tie has; then "ash-1 ±0.3 cm: B 80.6 (+2) | left out +1.2 cm (4.0 ±)".
     /// </summary>
-    public static string Line(Project project, MarkerSpec marker, string? anchorCore, string? focusCore)
+    public static string Line(Project project, MarkerSpec marker, string? anchorCore, string? focusCore, int shortening = 0)
     {
         var u = project.DepthUnit;
         string unit = u.Symbol();
-        string depths = string.Join(", ", marker.Depths.Select(d => $"{d.CoreId} {N(d.Depth.In(u))}"));
-        string text = $"{marker.Id} {marker.Kind.Name()} ±{N(marker.Uncertainty)} {unit}: {depths}";
+        string Depths(IReadOnlyCollection<MarkerDepth> listed) => string.Join(", ", listed.Select(d => $"{d.CoreId} {N(d.Depth.In(u))}"))
+            + (listed.Count < marker.Depths.Count ? $"{(listed.Count > 0 ? " " : "")}(+{marker.Depths.Count - listed.Count})" : "");
+        string full = $"{marker.Id} {marker.Kind.Name()} ±{N(marker.Uncertainty)} {unit}: {Depths(marker.Depths)}";
         var anchor = marker.Depths.FirstOrDefault(d => d.CoreId == anchorCore) ?? marker.Depths.FirstOrDefault();
-        if (anchor is null || marker.Depths.Count < 2) return text;
+        if (anchor is null || marker.Depths.Count < 2) return full;
         var misfits = marker.Depths.Where(d => d.CoreId != anchor.CoreId)
             .Select(d => (d.CoreId, Misfit: LeaveOneOut(project, marker.Id, anchor.CoreId, anchor.Depth.In(u), d.CoreId) is double p ? d.Depth.In(u) - p : (double?)null))
             .Where(x => x.Misfit is not null)
             .ToList();
-        if (misfits.Count == 0) return text + " | left out: no other shared tie";
+        if (misfits.Count == 0) return full + " | left out: no other shared tie";
         var pick = misfits.FirstOrDefault(x => x.CoreId == focusCore);
         if (pick.CoreId is null) pick = misfits.MaxBy(x => Math.Abs(x.Misfit!.Value));
         double mis = pick.Misfit!.Value;
         string sigmas = marker.Uncertainty > 0 ? $" ({N(Math.Abs(mis) / marker.Uncertainty)}×±)" : "";
-        return text + $" | left out: {pick.CoreId} {(mis >= 0 ? "+" : "")}{N(mis)} {unit}{sigmas} from {anchor.CoreId}";
+        string shift = $"{(mis >= 0 ? "+" : "")}{N(mis)} {unit}{sigmas}";
+        return shortening switch
+        {
+            0 => full + $" | left out: {pick.CoreId} {shift} from {anchor.CoreId}",
+            1 => $"{marker.Id} {marker.Kind.Name()} ±{N(marker.Uncertainty)} {unit}: {Depths([anchor, .. marker.Depths.Where(d => d.CoreId == pick.CoreId)])} | left out {shift}",
+            _ => $"{marker.Id} ±{N(marker.Uncertainty)} {unit}: {Depths([.. marker.Depths.Where(d => d.CoreId == pick.CoreId)])} | left out {shift}",
+        };
     }
 
     private static string N(double v) => v.ToString("0.##", CultureInfo.InvariantCulture);
