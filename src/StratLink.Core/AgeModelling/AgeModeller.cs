@@ -66,10 +66,31 @@ public static class AgeModeller
         var interpolation = AgeInterpolations.Parse(p.AgeModel.Interpolation);
         double step = p.Composite.Step > 0 ? p.Composite.Step : 1;
         var findings = new FindingList();
+
+        // Prepare every control; keep the problem of those that cannot be used.
         var specs = p.Ages;
-        var (prepared, problemOf, active, measured, usable) = PrepareControls(project, alignment, varveLayers, findings);
-        if (!usable)
+        var prepared = new PreparedControl?[specs.Count];
+        var problemOf = new string?[specs.Count];
+        for (int c = 0; c < specs.Count; c++)
         {
+            var localProblems = new FindingList();
+            prepared[c] = Prepare(project, alignment, varveLayers, specs[c], localProblems, out problemOf[c]);
+            findings.AddRange(localProblems);
+        }
+        int[] active = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null && !specs[c].Exclude).ToArray();
+        int[] measured = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null).ToArray();
+        NoteAgesAfterCoring(p, findings);
+        foreach (int c in Enumerable.Range(0, specs.Count).Where(c => specs[c].Exclude))
+            findings.Add(Finding.Note(AgeModelCodes.Excluded, $"age control {specs[c].Id} is excluded by the project file (exclude: true): listed, not used.") with { Item = specs[c].Id });
+
+        int distinctPoints = active.SelectMany(c => prepared[c]!.PointCores.Zip(prepared[c]!.PointDepths)).Distinct().Count();
+        if (distinctPoints < 2)
+        {
+            // A project without any age control asks for alignment and composite only: nothing failed.
+            findings.Add(specs.Count == 0
+                ? Finding.Note(AgeModelCodes.NoControls, "the project has no age controls: the alignment and the composite are built on depth alone, without ages.")
+                : Finding.Error(AgeModelCodes.TooFewControls,
+                    $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
             var empty = Summaries(specs, prepared, problemOf, [], [], iterations, null, [], []);
             return new AgeModelResult(seed, interpolation, unit, [], empty, new Dictionary<string, AgeSeries>(), null, 0, findings);
         }
@@ -946,51 +967,6 @@ public static class AgeModeller
         VarveCountControl v => [v.Core],
         _ => [],
     };
-
-    /// <summary>
-    /// What the age model finds before it draws anything: controls it cannot use, those excluded, ages after
-    /// coring, and too few usable points to model (an error that stops a build). Cheap: the checks report it.
-    /// </summary>
-    public static IReadOnlyList<Finding> Readiness(LoadedProject project, AlignmentResult alignment,
-        IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)> varveLayers)
-    {
-        var findings = new FindingList();
-        PrepareControls(project, alignment, varveLayers, findings);
-        return findings;
-    }
-
-    /// <summary>
-    /// Every control prepared (null, with its problem, where it cannot be used), the indices of those used and of
-    /// those measured (excluded ones included), and whether at least two distinct points leave a model to draw.
-    /// </summary>
-    private static (PreparedControl?[] Prepared, string?[] ProblemOf, int[] Active, int[] Measured, bool Usable) PrepareControls(
-        LoadedProject project, AlignmentResult alignment, IReadOnlyDictionary<string, (double[] Tops, double[] Bottoms)> varveLayers, FindingList findings)
-    {
-        var p = project.Project;
-        var specs = p.Ages;
-        var prepared = new PreparedControl?[specs.Count];
-        var problemOf = new string?[specs.Count];
-        for (int c = 0; c < specs.Count; c++)
-        {
-            var localProblems = new FindingList();
-            prepared[c] = Prepare(project, alignment, varveLayers, specs[c], localProblems, out problemOf[c]);
-            findings.AddRange(localProblems);
-        }
-        int[] active = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null && !specs[c].Exclude).ToArray();
-        int[] measured = Enumerable.Range(0, specs.Count).Where(c => prepared[c] is not null).ToArray();
-        NoteAgesAfterCoring(p, findings);
-        foreach (int c in Enumerable.Range(0, specs.Count).Where(c => specs[c].Exclude))
-            findings.Add(Finding.Note(AgeModelCodes.Excluded, $"age control {specs[c].Id} is excluded by the project file (exclude: true): listed, not used.") with { Item = specs[c].Id });
-
-        int distinctPoints = active.SelectMany(c => prepared[c]!.PointCores.Zip(prepared[c]!.PointDepths)).Distinct().Count();
-        if (distinctPoints >= 2) return (prepared, problemOf, active, measured, true);
-        // A project without any age control asks for alignment and composite only: nothing failed.
-        findings.Add(specs.Count == 0
-            ? Finding.Note(AgeModelCodes.NoControls, "the project has no age controls: the alignment and the composite are built on depth alone, without ages.")
-            : Finding.Error(AgeModelCodes.TooFewControls,
-                $"the age model needs at least two usable age controls at different depths; found {distinctPoints} usable point(s) from {active.Length} control(s)."));
-        return (prepared, problemOf, active, measured, false);
-    }
 
     /// <summary>The grid step a dtw alignment resolved (0 for other methods or without the reference's table).</summary>
     private static double AlignmentGridStep(LoadedProject project, AlignmentResult alignment) =>

@@ -6,8 +6,7 @@ namespace StratLink.Workflows;
 
 /// <summary>
 /// The checks behind <c>stratlink check</c>: the input problems of the project and its tables, then
-/// (when those allow) an alignment, what the age model finds before it draws (unusable controls, too few
-/// of them), and the consistency checks of ties, loops and age controls.
+/// (when those allow) an alignment and the consistency checks of ties, loops and age controls.
 /// </summary>
 public static class CheckWorkflow
 {
@@ -19,14 +18,6 @@ public static class CheckWorkflow
         // path alone): the checks judge the alignment the outputs carry.
         var alignment = CoreAligner.Align(project, null, ct);
         findings.AddRange(alignment.Findings);
-        // A project dated by a target has its ages only once the cores are aligned to it, as a build does.
-        if (project.Project.Target is null)
-        {
-            var varveProblems = new FindingList();
-            var varves = VarveLayerLoader.Load(project, varveProblems, ct);
-            findings.AddRange(varveProblems);
-            findings.AddRange(AgeModeller.Readiness(project, alignment, varves));
-        }
         findings.AddRange(ProjectChecks.Run(project, alignment, Context(null, progress), ct));
         return findings;
     }

@@ -34,24 +34,6 @@ public sealed class CheckCommandTests : IDisposable
     }
 
     [Fact]
-    public void Too_few_age_controls_for_a_model_are_an_error_of_the_check_as_of_the_build()
-    {
-        // Only the coring year left: one point cannot date anything, and the build stops on it.
-        string project = CliRunner.CopyDemo(_dir);
-        string text = File.ReadAllText(project);
-        int ages = text.IndexOf("\nages:\n", StringComparison.Ordinal), alignment = text.IndexOf("\nalignment:", StringComparison.Ordinal);
-        string kept = "\nages:\n- id: coring-year\n  kind: calendar\n  core: MW19-F4\n  depth: 0\n  age: -69\n  error: 1";
-        Assert.Contains(kept, text);
-        File.WriteAllText(project, text[..ages] + kept + text[alignment..]);
-        var (code, output, err) = CliRunner.Run("check", project, "--format", "json");
-        Assert.True(code == 1, output + err);
-        using var doc = JsonDocument.Parse(output);
-        var finding = doc.RootElement.EnumerateArray().Single(f => f.GetProperty("code").GetString() == "age-model.too-few-controls");
-        Assert.Equal("error", finding.GetProperty("severity").GetString());
-        Assert.Equal(1, CliRunner.Run("build", project, "--out", Path.Combine(_dir, "out")).Code);
-    }
-
-    [Fact]
     public void A_missing_project_file_is_exit_2_on_stderr()
     {
         var (code, output, err) = CliRunner.Run("check", Path.Combine(_dir, "nowhere.stratlink.yaml"));
