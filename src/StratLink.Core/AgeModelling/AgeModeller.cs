@@ -1007,16 +1007,10 @@ public static class AgeModeller
             }
         }
         var composite = new double[distinct.Count][];
-        var ratio = new double[distinct.Count][];
         Parallel.For(0, distinct.Count, options, k =>
         {
             composite[k] = new double[n];
-            ratio[k] = new double[n];
-            for (int s = 0; s < n; s++)
-            {
-                composite[k][s] = compositeEvents.ToEventFree(distinct[k].ToCompositeValue(dated[s]));
-                ratio[k][s] = distinct[k].RateRatioAt(dated[s]);
-            }
+            for (int s = 0; s < n; s++) composite[k][s] = compositeEvents.ToEventFree(distinct[k].ToCompositeValue(dated[s]));
         });
         var gridModelDepths = ensemble is null ? depths.Select(compositeEvents.ToEventFree).ToArray() : null;
 
@@ -1052,7 +1046,7 @@ public static class AgeModeller
                     else
                     {
                         curve.AgeAt(zs[at], out double yearsPerUnit);
-                        buf.Times[s * members + i] = ensemble is null ? yearsPerUnit : yearsPerUnit * ratio[memberOf[i]][at];
+                        buf.Times[s * members + i] = ensemble is null ? yearsPerUnit : yearsPerUnit * distinct[memberOf[i]].RateRatioAt(dated[at]);
                     }
                     if (curve.IsExtrapolated(zs[at])) outside[s]++;
                 }
