@@ -299,7 +299,7 @@ internal sealed class ScaleContinuation
         if (first < 0) return;
         var cx = member.CoreKnots;
         var cy = member.CompositeKnots;
-        double floor = cx[^1] > cx[0] ? (cy[^1] - cy[0]) / (cx[^1] - cx[0]) / 4 : 0;
+        double floor = cx[^1] > cx[0] ? (cy[^1] - cy[0]) / (cx[^1] - cx[0]) / Model.CheckSettings.DefaultRateJumpFactor : 0;
         int anchor = below ? first - 1 : last + 1;
         int from = below ? Math.Max(anchor, 0) : first, to = below ? last : Math.Min(anchor, kx.Length - 1);
         int n = to - from + 1;

@@ -4,7 +4,9 @@ namespace StratLink.Model;
 public sealed record CheckSettings
 {
     /// <summary>Largest accepted jump of the tie-implied accumulation-rate ratio between consecutive ties (common practice: 4).</summary>
-    public double RateJumpFactor { get; init; } = 4.0;
+    public double RateJumpFactor { get; init; } = DefaultRateJumpFactor;
+
+    public const double DefaultRateJumpFactor = 4.0;
 
     /// <summary>A tie the signals place more than this many tie uncertainties away is reported.</summary>
     public double TieMisfitSigmas { get; init; } = 3.0;
